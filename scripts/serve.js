@@ -1,0 +1,63 @@
+#!/usr/bin/env node
+// Serves the static build (./build) on localhost. No dependencies: node:http only.
+// Usage: node scripts/serve.js [--port 4173] [--quiet]
+import { createServer } from 'node:http';
+import { readFile, stat } from 'node:fs/promises';
+import { extname, join, normalize, resolve } from 'node:path';
+
+const args = process.argv.slice(2);
+const portArg = args.indexOf('--port');
+const port = portArg >= 0 ? Number(args[portArg + 1]) : Number(process.env.PORT ?? 4173);
+const quiet = args.includes('--quiet');
+const root = resolve(process.cwd(), 'build');
+
+const types = {
+	'.html': 'text/html; charset=utf-8',
+	'.js': 'text/javascript; charset=utf-8',
+	'.mjs': 'text/javascript; charset=utf-8',
+	'.css': 'text/css; charset=utf-8',
+	'.json': 'application/json; charset=utf-8',
+	'.svg': 'image/svg+xml',
+	'.png': 'image/png',
+	'.csv': 'text/csv; charset=utf-8',
+	'.txt': 'text/plain; charset=utf-8',
+	'.webmanifest': 'application/manifest+json'
+};
+
+async function resolveFile(urlPath) {
+	const clean = normalize(decodeURIComponent(urlPath.split('?')[0])).replace(/^(\.\.[/\\])+/, '');
+	let file = join(root, clean);
+	if (!file.startsWith(root)) return null;
+	try {
+		const s = await stat(file);
+		if (s.isDirectory()) file = join(file, 'index.html');
+		await stat(file);
+		return file;
+	} catch {
+		try {
+			await stat(file + '.html');
+			return file + '.html';
+		} catch {
+			return null;
+		}
+	}
+}
+
+const server = createServer(async (req, res) => {
+	const file = await resolveFile(req.url ?? '/');
+	if (!file) {
+		res.writeHead(404, { 'content-type': 'text/plain' });
+		res.end('not found');
+		return;
+	}
+	const body = await readFile(file);
+	res.writeHead(200, {
+		'content-type': types[extname(file)] ?? 'application/octet-stream',
+		'cache-control': file.includes('/_app/immutable/') ? 'public, max-age=31536000, immutable' : 'no-cache'
+	});
+	res.end(body);
+});
+
+server.listen(port, '127.0.0.1', () => {
+	if (!quiet) console.log(`Beamwright is running at http://localhost:${port}/  (Ctrl+C to stop)`);
+});

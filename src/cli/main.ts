@@ -1,0 +1,53 @@
+/**
+ * Beamwright command line: `npx beamwright <command> [options]`.
+ * JSON on stdout; exit 0 on success; bad input → exit 2 and one line on stderr naming the argument.
+ * Each command lives in ./commands/<name>.ts and exports `run(args): Promise<unknown>` (the JSON result,
+ * or a string to print as-is) plus a one-line `summary`.
+ */
+import { CliInputError, parseArgs } from './args';
+
+type Command = { summary: string; usage: string; run: (argv: string[]) => Promise<unknown> };
+
+const registry: Record<string, () => Promise<Command>> = {
+	beam: () => import('./commands/beam'),
+	propagate: () => import('./commands/propagate')
+};
+
+function help(): string {
+	return [
+		'Beamwright — Gaussian beams, matching, beam quality and first-pass laser hazard estimates.',
+		'Usage: npx beamwright <command> [options]   (JSON on stdout)',
+		'Commands: ' + Object.keys(registry).join(', '),
+		'Run `npx beamwright <command> --help` for a command’s options.'
+	].join('\n');
+}
+
+export async function main(argv: string[]): Promise<number> {
+	const [name, ...rest] = argv;
+	if (!name || name === '--help' || name === 'help') {
+		process.stdout.write(help() + '\n');
+		return name ? 0 : 2;
+	}
+	const load = registry[name];
+	if (!load) {
+		process.stderr.write(`command: "${name}" is not a Beamwright command — one of ${Object.keys(registry).join(', ')}\n`);
+		return 2;
+	}
+	const cmd = await load();
+	if (parseArgs(rest).options.has('help')) {
+		process.stdout.write(`${cmd.summary}\nUsage: ${cmd.usage}\n`);
+		return 0;
+	}
+	try {
+		const out = await cmd.run(rest);
+		process.stdout.write(typeof out === 'string' ? out : JSON.stringify(out, null, 2) + '\n');
+		return 0;
+	} catch (e) {
+		if (e instanceof CliInputError || e instanceof RangeError) {
+			process.stderr.write(e.message.split('\n')[0] + '\n');
+			return 2;
+		}
+		process.stderr.write(`internal error: ${(e as Error).message}\n`);
+		return 1;
+	}
+}

@@ -1,0 +1,63 @@
+/**
+ * Formatting at the edge: SI prefixes and sensible significant figures. Never returns "NaN",
+ * "Infinity" or "undefined": non-finite input is rendered as an explicit word.
+ */
+
+const prefixes: Array<[number, string]> = [
+	[1e12, 'T'],
+	[1e9, 'G'],
+	[1e6, 'M'],
+	[1e3, 'k'],
+	[1, ''],
+	[1e-3, 'm'],
+	[1e-6, 'µ'],
+	[1e-9, 'n'],
+	[1e-12, 'p'],
+	[1e-15, 'f']
+];
+
+/** Round to `sig` significant figures and drop trailing zeros beyond them: 0.0012345, 3 → "0.00123". */
+export function formatNumber(value: number, sig = 4): string {
+	if (Number.isNaN(value)) return '—';
+	if (value === Infinity) return '∞';
+	if (value === -Infinity) return '−∞';
+	if (value === 0) return '0';
+	const abs = Math.abs(value);
+	if (abs >= 1e6 || abs < 1e-4) {
+		const [m, e] = value.toExponential(sig - 1).split('e');
+		return `${Number(m)}×10^${Number(e)}`.replace('-', '−');
+	}
+	const s = Number(value.toPrecision(sig)).toString();
+	return s.replace('-', '−');
+}
+
+/**
+ * Format an SI value with a prefix: formatSI(5e-4, 'm') → "500 µm"; formatSI(0.0712, 'm', 3) → "71.2 mm".
+ * Units that should not carry prefixes (e.g. '' or '%') are printed plainly.
+ */
+export function formatSI(value_si: number, unit: string, sig = 4): string {
+	if (!Number.isFinite(value_si)) return formatNumber(value_si, sig) + (unit ? ' ' + unit : '');
+	if (unit === '' || unit === '%' || unit === '°') return formatNumber(value_si, sig) + (unit ? (unit === '°' ? '°' : ' ' + unit) : '');
+	const abs = Math.abs(value_si);
+	if (abs === 0) return `0 ${unit}`;
+	let chosen = prefixes[prefixes.length - 1];
+	for (const p of prefixes) {
+		if (abs >= p[0] * 0.99995) {
+			chosen = p;
+			break;
+		}
+	}
+	const scaled = value_si / chosen[0];
+	return `${formatNumber(scaled, sig)} ${chosen[1]}${unit}`;
+}
+
+/** Length with the unit restricted to a lab-friendly set (km is odd on a bench, nm for wavelengths is fine). */
+export function formatLength(value_m: number, sig = 4): string {
+	return formatSI(value_m, 'm', sig);
+}
+
+/** Percent with `sig` significant figures: 0.98765 → "98.77 %". */
+export function formatPercent(fraction: number, sig = 4): string {
+	if (!Number.isFinite(fraction)) return formatNumber(fraction, sig) + ' %';
+	return `${formatNumber(fraction * 100, sig)} %`;
+}
