@@ -7,6 +7,7 @@ export default defineConfig({
 	test: {
 		include: ['tests/unit/**/*.test.ts', 'tests/reference/**/*.test.ts', 'tests/property/**/*.test.ts', 'src/**/*.test.ts'],
 		environment: 'node',
+		setupFiles: ['tests/setup.ts'],
 		testTimeout: 30000
 	}
 });

@@ -5,12 +5,15 @@
  * or a string to print as-is) plus a one-line `summary`.
  */
 import { CliInputError, parseArgs } from './args';
+import { loadUnitEngine } from '../lib/units/parse';
 
 type Command = { summary: string; usage: string; run: (argv: string[]) => Promise<unknown> };
 
 const registry: Record<string, () => Promise<Command>> = {
 	beam: () => import('./commands/beam'),
-	propagate: () => import('./commands/propagate')
+	propagate: () => import('./commands/propagate'),
+	fit: () => import('./commands/fit'),
+	moments: () => import('./commands/moments')
 };
 
 function help(): string {
@@ -33,7 +36,7 @@ export async function main(argv: string[]): Promise<number> {
 		process.stderr.write(`command: "${name}" is not a Beamwright command — one of ${Object.keys(registry).join(', ')}\n`);
 		return 2;
 	}
-	const cmd = await load();
+	const [cmd] = await Promise.all([load(), loadUnitEngine()]);
 	if (parseArgs(rest).options.has('help')) {
 		process.stdout.write(`${cmd.summary}\nUsage: ${cmd.usage}\n`);
 		return 0;

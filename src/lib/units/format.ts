@@ -61,3 +61,16 @@ export function formatPercent(fraction: number, sig = 4): string {
 	if (!Number.isFinite(fraction)) return formatNumber(fraction, sig) + ' %';
 	return `${formatNumber(fraction * 100, sig)} %`;
 }
+
+/**
+ * Pick one SI prefix for a whole plot axis from its largest magnitude: axisPrefix(0.0042, 'm') →
+ * { factor: 1e-3, unit: 'mm' }; tick values are then divided by `factor`.
+ */
+export function axisPrefix(maxAbs_si: number, unit: string): { factor: number; unit: string } {
+	if (!(maxAbs_si > 0) || !Number.isFinite(maxAbs_si)) return { factor: 1, unit };
+	for (const [f, p] of prefixes) {
+		if (maxAbs_si >= f * 0.99995) return { factor: f, unit: p + unit };
+	}
+	const last = prefixes[prefixes.length - 1];
+	return { factor: last[0], unit: last[1] + unit };
+}

@@ -1,0 +1,10 @@
+import { chromium } from '@playwright/test';
+const b = await chromium.launch({ executablePath: '/usr/bin/chromium', args: ['--no-sandbox','--disable-gpu','--disable-background-networking','--disable-component-update','--disable-sync','--no-first-run'] });
+const p = await b.newPage({ viewport: { width: 1440, height: 1000 } });
+p.on('console', m => console.log('console:', m.type(), m.text()));
+p.on('pageerror', e => console.log('pageerror:', e.message));
+await p.goto(process.argv[2] ?? 'http://localhost:4173/');
+await p.waitForTimeout(800);
+if (process.argv[4]) await p.mouse.move(700, 300);
+await p.screenshot({ path: process.argv[3] ?? '/tmp/shot.png', fullPage: true });
+await b.close();

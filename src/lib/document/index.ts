@@ -1,0 +1,4 @@
+export * from './schema';
+export * from './compile';
+export * from './elementKinds';
+export * from './demo';
