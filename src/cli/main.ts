@@ -13,7 +13,13 @@ const registry: Record<string, () => Promise<Command>> = {
 	beam: () => import('./commands/beam'),
 	propagate: () => import('./commands/propagate'),
 	fit: () => import('./commands/fit'),
-	moments: () => import('./commands/moments')
+	moments: () => import('./commands/moments'),
+	cavity: () => import('./commands/cavity'),
+	fiber: () => import('./commands/fiber'),
+	overlap: () => import('./commands/overlap'),
+	mpe: () => import('./commands/mpe'),
+	hazard: () => import('./commands/hazard'),
+	match: () => import('./commands/match')
 };
 
 function help(): string {

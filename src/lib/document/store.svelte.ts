@@ -146,9 +146,11 @@ export function getSetupStore(): SetupStore {
 		const storage = typeof localStorage !== 'undefined' ? localStorage : null;
 		shared = new SetupStore(storage);
 		if (typeof window !== 'undefined') {
-			// Fetch the full unit engine once the first view is up.
-			const idle = (window as Window & { requestIdleCallback?: (f: () => void) => void }).requestIdleCallback ?? ((f: () => void) => setTimeout(f, 200));
-			idle(() => void loadUnitEngine());
+			// Fetch the full unit engine at the user's first key press, or 1.5 s after start, whichever
+			// comes first — never on the path to the first view.
+			const load = () => void loadUnitEngine();
+			document.addEventListener('keydown', load, { once: true });
+			setTimeout(load, 1500);
 			window.addEventListener('pagehide', () => shared?.flush());
 			document.addEventListener('visibilitychange', () => {
 				if (document.visibilityState === 'hidden') shared?.flush();

@@ -186,6 +186,14 @@ export function compileElement(spec: ElementSpec, n0: number): { steps: Step[]; 
 			return { steps, length_m: t, indexAfter: n0 };
 		}
 		case 'plate': {
+			// Snell: n·sinθ2 = n0·sinθ1 has no real θ2 past the critical angle (total internal reflection).
+			requireThat(
+				n0 * Math.sin(spec.angle_rad) < spec.index,
+				'plate angle',
+				`below the critical angle (${((Math.asin(Math.min(1, spec.index / n0)) * 180) / Math.PI).toPrecision(4)}° for plate index ${spec.index} in a medium of index ${n0})`,
+				spec.angle_rad,
+				'rad'
+			);
 			const p = plateReducedLengths(spec.thickness_m, spec.index, spec.angle_rad, n0);
 			const tx = spec.plane === 'x' ? p.tangential_m : p.sagittal_m;
 			const ty = spec.plane === 'x' ? p.sagittal_m : p.tangential_m;

@@ -96,7 +96,11 @@ export interface Propagation {
 	transmitted: number;
 }
 
-function applyMat(m: Mat2, q: QHat): { q: QHat; dGouy: number } {
+/**
+ * One q-propagation step: q̂′ = (A·q̂ + B)/(C·q̂ + D) (Kogelnik & Li 1966, eq. 26), with the Gouy phase
+ * gained, −arg(A + B/q̂). Plain-number complex arithmetic; this is the engine's hot path.
+ */
+export function applyMat(m: Mat2, q: QHat): { q: QHat; dGouy: number } {
 	// q' = (A q + B) / (C q + D) with plain complex arithmetic.
 	const nr = m[0] * q.re + m[1];
 	const ni = m[0] * q.im;

@@ -25,7 +25,7 @@ export function formatNumber(value: number, sig = 4): string {
 	const abs = Math.abs(value);
 	if (abs >= 1e6 || abs < 1e-4) {
 		const [m, e] = value.toExponential(sig - 1).split('e');
-		return `${Number(m)}×10^${Number(e)}`.replace('-', '−');
+		return `${Number(m)}×10^${Number(e)}`.replace(/-/g, '−');
 	}
 	const s = Number(value.toPrecision(sig)).toString();
 	return s.replace('-', '−');

@@ -156,6 +156,8 @@ export function parseQuantity(text: string | undefined | null, spec: FieldSpec):
 	if (/^[-+]?(\d+\.?\d*|\.\d+)(e[-+]?\d+)?$/i.test(t)) {
 		const n = Number(t);
 		if (spec.kind === 'dimensionless') value = n;
+		// Zero is zero in every unit: "--at 0" or a "0" position needs no unit (the range check still applies).
+		else if (n === 0) value = 0;
 		else if (spec.defaultUnit && defaultUnitFactor(spec.defaultUnit) !== null) value = n * defaultUnitFactor(spec.defaultUnit)!;
 		else return { ok: false, message: `${spec.label} needs a unit — e.g. "${example}"` };
 	} else if (fast) {

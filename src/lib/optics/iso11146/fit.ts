@@ -118,7 +118,7 @@ export function fitCaustic(points: readonly CausticPoint[], options: FitOptions 
 	});
 	const n = points.length;
 	const distinct = new Set(points.map((p) => p.z_m)).size;
-	if (distinct < 3) throw new RangeError(`planes must number at least 3 at different z for a caustic fit — got ${distinct} distinct z`);
+	if (distinct < 3) throw new RangeError(`planes at different z must number at least 3 for a caustic fit — got ${distinct}`);
 
 	// Centre and scale z, scale d², so the normal matrix is of order 1 at any lab scale.
 	let zMin = Infinity, zMax = -Infinity, yMax = 0;
@@ -138,7 +138,7 @@ export function fitCaustic(points: readonly CausticPoint[], options: FitOptions 
 		w[k] = weighting === 'relative' ? 1 / (y[k] * y[k]) : 1;
 	}
 	const q = fitQuadratic(u, y, w);
-	if (!q) throw new RangeError(`planes must number at least 3 at different z for a caustic fit — got ${distinct} distinct z`);
+	if (!q) throw new RangeError(`planes at different z must number at least 3 for a caustic fit — got ${distinct}`);
 
 	// Coefficients in the centred, unscaled abscissa t = z − zm: d² = a' + b'·t + c'·t².
 	const sc = [yMax, yMax / zs, yMax / (zs * zs)];

@@ -7,7 +7,8 @@
  *   1. fit a background plane to a border frame and subtract it (./background.ts);
  *   2. first guess from the pixels above 5 % of the peak and above 5σ of the noise;
  *   3. integrate the moments over a rectangle `areaFactor` (default 3) times the D4σ widths, centred
- *      on the centroid, and repeat until centroid and widths change by less than `tolerance`.
+ *      on the centroid, and repeat until centroid and widths change by less than `tolerance`;
+ *   4. refit the background plane to every pixel outside that rectangle and repeat step 3 (twice).
  *
  * Moments (sums over the integration area, E = background-subtracted value):
  *   P = ΣE,  x̄ = ΣE·x/P,  ȳ = ΣE·y/P,
@@ -144,12 +145,57 @@ function firstGuess(img: GreyImage, bg: Background): Sums | null {
 	return areaMoments(img, bg, 0, W - 1, 0, H - 1, (W - 1) / 2, (H - 1) / 2, cut);
 }
 
+interface AreaRun {
+	s: Sums;
+	area: { x0: number; y0: number; x1: number; y1: number };
+	iterations: number;
+	converged: boolean;
+	clipped: boolean;
+}
+
+const sameArea = (a: AreaRun['area'], b: AreaRun['area']) => a.x0 === b.x0 && a.x1 === b.x1 && a.y0 === b.y0 && a.y1 === b.y1;
+
+/** Iterate the integration rectangle (factor × the D4σ widths about the centroid) until it settles. */
+function iterateArea(img: GreyImage, bg: Background, start: Sums, factor: number, clip: number, tol: number, maxIt: number): AreaRun {
+	const { width: W, height: H } = img;
+	let s = start;
+	let area = { x0: 0, y0: 0, x1: W - 1, y1: H - 1 };
+	let before: typeof area | null = null;
+	let clipped = false;
+	let it = 0;
+	while (it < maxIt) {
+		it++;
+		const hx = 0.5 * factor * 4 * Math.sqrt(s.xx);
+		const hy = 0.5 * factor * 4 * Math.sqrt(s.yy);
+		const ax0 = Math.round(s.cx - hx), ax1 = Math.round(s.cx + hx), ay0 = Math.round(s.cy - hy), ay1 = Math.round(s.cy + hy);
+		const next = { x0: Math.max(0, ax0), x1: Math.min(W - 1, ax1), y0: Math.max(0, ay0), y1: Math.min(H - 1, ay1) };
+		if (next.x1 - next.x0 < 2 || next.y1 - next.y0 < 2) break;
+		// The area is a whole-pixel rectangle: the same rectangle again (or the one before, a two-step
+		// cycle that noise can cause) gives moments already computed, so the iteration has settled.
+		if (it > 1 && (sameArea(next, area) || (before && sameArea(next, before)))) return { s, area, iterations: it - 1, converged: true, clipped };
+		before = area;
+		const m = areaMoments(img, bg, next.x0, next.x1, next.y0, next.y1, s.cx, s.cy, clip);
+		if (!m || !(m.xx > 0) || !(m.yy > 0)) break;
+		area = next;
+		clipped = next.x0 !== ax0 || next.x1 !== ax1 || next.y0 !== ay0 || next.y1 !== ay1;
+		const d = 4 * Math.sqrt(Math.max(m.xx, m.yy));
+		const change = Math.max(
+			Math.abs(Math.sqrt(m.xx) - Math.sqrt(s.xx)) / Math.sqrt(m.xx),
+			Math.abs(Math.sqrt(m.yy) - Math.sqrt(s.yy)) / Math.sqrt(m.yy),
+			Math.hypot(m.cx - s.cx, m.cy - s.cy) / d
+		);
+		s = m;
+		if (change < tol) return { s, area, iterations: it, converged: true, clipped };
+	}
+	return { s, area, iterations: it, converged: false, clipped };
+}
+
 /**
  * Centroid, D4σ widths, orientation and ellipticity of the beam in `img` (see the module comment
  * for formulas and the procedure).
  * Units: pixelPitch_m in m; results in m and rad, plus the centroid in pixels.
- * Worked example: a 256 × 256 image of exp(−2r²/w²) with w = 40 pixels centred at (128, 100), a
- * constant background of 500 counts and pitch 5.5 µm gives centroid (128, 100) px,
+ * Worked example: a 256 × 256 image of exp(−2r²/w²) with w = 40 pixels centred at (128, 120), a
+ * constant background of 500 counts and pitch 5.5 µm gives centroid (128, 120) px,
  * d_x = d_y = 2w = 80 px = 440 µm, ellipticity 1.
  * Source: ISO 11146-1:2005, clauses 3 and 8 (moments, widths, azimuth, ellipticity; from memory);
  * ISO/TR 11146-3:2004, clause 3 (background, integration area 3× the widths, iteration; from memory);
@@ -169,50 +215,35 @@ export function beamMoments(img: GreyImage, options: MomentsOptions): BeamMoment
 	if (!(Number.isInteger(maxIt) && maxIt >= 1)) throw new RangeError(`maximum iterations must be a whole number ≥ 1 — got ${maxIt}`);
 	const { width: W, height: H } = img;
 	const frame = options.frame_px ?? Math.max(2, Math.round(0.03 * Math.min(W, H)));
-	const bg = estimateBackground(img, frame);
-	const clip = clipSigma * bg.noise_counts;
+	let bg = estimateBackground(img, { frame_px: frame });
 	const warnings: string[] = [];
 
-	let s = firstGuess(img, bg);
-	if (!s || !(s.xx > 0) || !(s.yy > 0)) {
+	const first = firstGuess(img, bg);
+	if (!first || !(first.xx > 0) || !(first.yy > 0)) {
 		throw new RangeError(`image must show a beam above the background noise — peak after background removal is not above 5× the noise (${bg.noise_counts.toPrecision(3)} counts)`);
 	}
-	let x0 = 0, x1 = W - 1, y0 = 0, y1 = H - 1;
-	let converged = false;
-	let it = 0;
-	let clipped = false;
-	while (it < maxIt) {
-		it++;
-		const hx = 0.5 * factor * 4 * Math.sqrt(s.xx);
-		const hy = 0.5 * factor * 4 * Math.sqrt(s.yy);
-		const ax0 = Math.round(s.cx - hx), ax1 = Math.round(s.cx + hx), ay0 = Math.round(s.cy - hy), ay1 = Math.round(s.cy + hy);
-		x0 = Math.max(0, ax0);
-		x1 = Math.min(W - 1, ax1);
-		y0 = Math.max(0, ay0);
-		y1 = Math.min(H - 1, ay1);
-		clipped = x0 !== ax0 || x1 !== ax1 || y0 !== ay0 || y1 !== ay1;
-		if (x1 - x0 < 2 || y1 - y0 < 2) break;
-		const next = areaMoments(img, bg, x0, x1, y0, y1, s.cx, s.cy, clip);
-		if (!next || !(next.xx > 0) || !(next.yy > 0)) break;
-		const d = 4 * Math.sqrt(Math.max(next.xx, next.yy));
-		const change = Math.max(
-			Math.abs(Math.sqrt(next.xx) - Math.sqrt(s.xx)) / Math.sqrt(next.xx),
-			Math.abs(Math.sqrt(next.yy) - Math.sqrt(s.yy)) / Math.sqrt(next.yy),
-			Math.hypot(next.cx - s.cx, next.cy - s.cy) / d
-		);
-		s = next;
-		if (change < tol) {
-			converged = true;
-			break;
-		}
+	let run = iterateArea(img, bg, first, factor, clipSigma * bg.noise_counts, tol, maxIt);
+	let iterations = run.iterations;
+	// Refine the background from every pixel outside the integration area, then settle the area again.
+	for (let pass = 0; pass < 2; pass++) {
+		const a = run.area;
+		const outside = W * H - (a.x1 - a.x0 + 1) * (a.y1 - a.y0 + 1);
+		if (outside < 100) break;
+		bg = estimateBackground(img, { outside: a }, bg);
+		run = iterateArea(img, bg, run.s, factor, clipSigma * bg.noise_counts, tol, maxIt);
+		iterations += run.iterations;
 	}
+	const { s, converged, clipped } = run;
+	const { x0, y0, x1, y1 } = run.area;
 	if (!(s.xx > 0 && s.yy > 0) || s.xx * s.yy - s.xy * s.xy <= 0) {
 		throw new RangeError('beam must span more than one pixel in x and in y — its second moments are degenerate');
 	}
-	if (!converged) warnings.push(`the integration area did not settle within ${it} iterations; widths are from the last one`);
+	if (!converged) warnings.push(`the integration area did not settle within ${maxIt} iterations; widths are from the last one`);
 	if (clipped) warnings.push('the integration area is cut by the image edge: the beam is too large or off-centre, so the widths are too small');
-	if (x0 < frame || y0 < frame || x1 > W - 1 - frame || y1 > H - 1 - frame) {
-		warnings.push(`the integration area reaches the ${frame}-pixel border used for the background, which may then include beam light`);
+	if (bg.region === 'border') {
+		warnings.push('the beam and its integration area fill the image, so the background comes from the border frame and may include beam light');
+	} else if (W * H - (x1 - x0 + 1) * (y1 - y0 + 1) < 0.1 * W * H) {
+		warnings.push(`less than a tenth of the image lies outside the integration area for the background; a larger image around the beam would make it surer`);
 	}
 	if (4 * Math.sqrt(Math.min(s.xx, s.yy)) < 10) warnings.push('the beam is less than 10 pixels wide: pixel size limits the accuracy of the widths');
 	if (img.maxValue !== undefined) {
@@ -246,7 +277,7 @@ export function beamMoments(img: GreyImage, options: MomentsOptions): BeamMoment
 		sigma2_m2: { xx: xx * pitch * pitch, yy: yy * pitch * pitch, xy: xy * pitch * pitch },
 		background: bg,
 		area_px: { x0, y0, x1, y1 },
-		iterations: it,
+		iterations,
 		converged,
 		warnings
 	};

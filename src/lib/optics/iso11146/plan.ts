@@ -115,8 +115,10 @@ export function checkPlan(z_m: readonly number[], waist: { z0_m: number; zR_m: n
 	if (n > 0 && (z0 < zMin || z0 > zMax)) findings.push(`the fitted waist (${fmt(z0)} m) lies outside the measured range ${fmt(zMin)} to ${fmt(zMax)} m, so it is extrapolated`);
 
 	const add: PlanSuggestion[] = [];
+	// Proposed positions keep a margin inside each zone (0.9·zR, 2.2·zR), so that a plane does not
+	// change zone when the next fit moves z0 or zR a little.
 	if (addNear > 0) {
-		add.push({ zone: 'near', count: addNear, from_m: z0 - zR, to_m: z0 + zR, at_m: spread(z0 - zR, z0 + zR, addNear, [...z_m]) });
+		add.push({ zone: 'near', count: addNear, from_m: z0 - zR, to_m: z0 + zR, at_m: spread(z0 - 0.9 * zR, z0 + 0.9 * zR, addNear, [...z_m]) });
 	}
 	if (addFar > 0) {
 		// Far field on the side(s) already measured beyond the waist; both sides if neither or both.
@@ -125,7 +127,8 @@ export function checkPlan(z_m: readonly number[], waist: { z0_m: number; zR_m: n
 		sides.forEach((side, k) => {
 			if (counts[k] === 0) return;
 			const [lo, hi] = side === 'above' ? [z0 + 2 * zR, z0 + 4 * zR] : [z0 - 4 * zR, z0 - 2 * zR];
-			add.push({ zone: 'far', count: counts[k], from_m: lo, to_m: hi, at_m: spread(lo, hi, counts[k], [...z_m]) });
+			const [plo, phi] = side === 'above' ? [z0 + 2.2 * zR, hi] : [lo, z0 - 2.2 * zR];
+			add.push({ zone: 'far', count: counts[k], from_m: lo, to_m: hi, at_m: spread(plo, phi, counts[k], [...z_m]) });
 		});
 	}
 	return { ok: addNear === 0 && addFar === 0, rule: planRule, planes: n, near, far, between, findings, add };

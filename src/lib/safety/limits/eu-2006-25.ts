@@ -16,6 +16,7 @@
  *
  * Wavelengths in nm and angles in mrad as the Directive prints them; values in SI (J/m², W/m²).
  */
+import { sci } from './sci';
 import type { Edition, FactorValues, LimitRow, Target } from './types';
 
 const T22 = 'Directive 2006/25/EC Annex II Table 2.2';
@@ -84,13 +85,13 @@ const retinalRows: LimitRow[] = retinalShort.flatMap(({ band, ps, k1, ns, k2, tB
 	const b = `${band[0]}–${band[1]} nm`;
 	return [
 		row({ id: `retina-${band[0]}-ps`, targets: EYE, wavelength_nm: band, duration_s: [1e-13, 1e-11], mechanism: 'thermal', kind: 'radiantExposure', uses,
-			expression: `H = ${ps.toExponential(1)}·${fxText} J/m²`, value: ({ f }) => ps * fx(f), source: `${T22}, row ${b}, column 10⁻¹³–10⁻¹¹ s${MEM}` }),
+			expression: `H = ${sci(ps)}·${fxText} J/m²`, value: ({ f }) => ps * fx(f), source: `${T22}, row ${b}, column 10⁻¹³–10⁻¹¹ s${MEM}` }),
 		row({ id: `retina-${band[0]}-sub-ns`, targets: EYE, wavelength_nm: band, duration_s: [1e-11, 1e-9], mechanism: 'thermal', kind: 'radiantExposure', uses,
-			expression: `H = ${k1.toExponential(1)}·t^0.75·${fxText} J/m²`, value: ({ t_s, f }) => k1 * t_s ** 0.75 * fx(f), source: `${T22}, row ${b}, column 10⁻¹¹–10⁻⁹ s${MEM}` }),
+			expression: `H = ${sci(k1)}·t^0.75·${fxText} J/m²`, value: ({ t_s, f }) => k1 * t_s ** 0.75 * fx(f), source: `${T22}, row ${b}, column 10⁻¹¹–10⁻⁹ s${MEM}` }),
 		row({ id: `retina-${band[0]}-ns`, targets: EYE, wavelength_nm: band, duration_s: [1e-9, tBreak], mechanism: 'thermal', kind: 'radiantExposure', uses,
-			expression: `H = ${ns.toExponential(0)}·${fxText} J/m²`, value: ({ f }) => ns * fx(f), source: `${T22}, row ${b}, columns 10⁻⁹–${tBreak.toExponential(1)} s${MEM}` }),
+			expression: `H = ${sci(ns)}·${fxText} J/m²`, value: ({ f }) => ns * fx(f), source: `${T22}, row ${b}, columns 10⁻⁹–${sci(tBreak)} s${MEM}` }),
 		row({ id: `retina-${band[0]}-long-pulse`, targets: EYE, wavelength_nm: band, duration_s: [tBreak, 10], mechanism: 'thermal', kind: 'radiantExposure', uses,
-			expression: `H = ${k2}·t^0.75·${fxText} J/m²`, value: ({ t_s, f }) => k2 * t_s ** 0.75 * fx(f), source: `${T22}, row ${b}, columns ${tBreak.toExponential(1)}–10 s${MEM}` })
+			expression: `H = ${k2}·t^0.75·${fxText} J/m²`, value: ({ t_s, f }) => k2 * t_s ** 0.75 * fx(f), source: `${T22}, row ${b}, columns ${sci(tBreak)}–10 s${MEM}` })
 	];
 });
 
@@ -131,13 +132,13 @@ const irRows: LimitRow[] = irBands.flatMap(({ band, E0, H, tEnd }) => {
 	const b = band[1] === 1e6 ? '2600 nm–1 mm' : `${band[0]}–${band[1]} nm`;
 	const rows: LimitRow[] = [
 		row({ id: `ir-${band[0]}-ultrashort`, targets: BOTH, wavelength_nm: band, duration_s: [1e-13, 1e-9], mechanism: 'thermal', kind: 'irradiance',
-			expression: `E = ${E0.toExponential(0)} W/m²`, value: () => E0, source: `${T22} and ${T24}, row ${b}, columns 10⁻¹³–10⁻⁹ s${MEM}` }),
+			expression: `E = ${sci(E0)} W/m²`, value: () => E0, source: `${T22} and ${T24}, row ${b}, columns 10⁻¹³–10⁻⁹ s${MEM}` }),
 		row({ id: `ir-${band[0]}-constant`, targets: BOTH, wavelength_nm: band, duration_s: [1e-9, tEnd], mechanism: 'thermal', kind: 'radiantExposure',
-			expression: `H = ${H} J/m²`, value: () => H, source: `${T22}, row ${b}, columns 10⁻⁹–${tEnd} s; skin as eye (${T24})${MEM}` })
+			expression: `H = ${H} J/m²`, value: () => H, source: `${T22}, row ${b}, columns 10⁻⁹–${sci(tEnd)} s; skin as eye (${T24})${MEM}` })
 	];
 	if (tEnd < 10)
 		rows.push(row({ id: `ir-${band[0]}-t025`, targets: BOTH, wavelength_nm: band, duration_s: [tEnd, 10], mechanism: 'thermal', kind: 'radiantExposure', uses: ['C1'],
-			expression: 'H = 5.6·10³·t^0.25 J/m²', value: ({ t_s }) => 5.6e3 * t_s ** 0.25, source: `${T22}, row ${b}, columns ${tEnd}–10 s; skin as eye (${T24})${MEM}` }));
+			expression: 'H = 5.6·10³·t^0.25 J/m²', value: ({ t_s }) => 5.6e3 * t_s ** 0.25, source: `${T22}, row ${b}, columns ${sci(tEnd)}–10 s; skin as eye (${T24})${MEM}` }));
 	rows.push(row({ id: `ir-${band[0]}-long`, targets: BOTH, wavelength_nm: band, duration_s: [10, 3e4], mechanism: 'thermal', kind: 'irradiance',
 		expression: 'E = 1000 W/m²', value: () => 1000, source: `${T23} and ${T24}, row ${b}, columns 10–3·10⁴ s${MEM}` }));
 	return rows;

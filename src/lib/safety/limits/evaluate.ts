@@ -36,9 +36,9 @@ export function checkLimitInput(input: LimitInput): { lambda_nm: number; t_s: nu
 	if (!Number.isFinite(wavelength_m)) throw new RangeError(`wavelength must be a finite number — got ${wavelength_m}`);
 	const lambda_nm = wavelength_m * 1e9;
 	if (!(lambda_nm >= wavelengthRange_nm[0] * (1 - 1e-12) && lambda_nm <= wavelengthRange_nm[1] * (1 + 1e-12)))
-		throw new RangeError(`wavelength must be within 180 nm–1 mm (the range of the exposure-limit tables) — got ${fmtNm(lambda_nm)}`);
+		throw new RangeError(`wavelength must be within 180 nm–1 mm — got ${fmtNm(lambda_nm)}`);
 	if (!Number.isFinite(duration_s) || !(duration_s >= durationRange_s[0] * (1 - 1e-12) && duration_s <= durationRange_s[1] * (1 + 1e-12)))
-		throw new RangeError(`exposure duration must be within 1e-13 s–3e4 s (the range of the exposure-limit tables) — got ${duration_s} s`);
+		throw new RangeError(`exposure duration must be within 1e-13 s–3e4 s — got ${duration_s} s`);
 	if (target !== 'eye' && target !== 'skin') throw new RangeError(`target must be eye or skin — got ${String(target)}`);
 	if (!Number.isFinite(alpha_rad) || alpha_rad < 0 || alpha_rad > Math.PI)
 		throw new RangeError(`apparent source angle α must be within 0–π rad — got ${alpha_rad} rad`);
@@ -101,6 +101,7 @@ export function evaluateEdition(edition: Edition, input: LimitInput): LimitResul
 	const factors: FactorReport[] = order
 		.filter((k) => used.has(k))
 		.map((k) => ({ ...factorInfo[k], value: f[k] }));
+	const allFactors: FactorReport[] = order.filter((k) => Number.isFinite(f[k])).map((k) => ({ ...factorInfo[k], value: f[k] }));
 	return {
 		standardId: edition.id,
 		standard: edition.title,
@@ -116,6 +117,7 @@ export function evaluateEdition(edition: Edition, input: LimitInput): LimitResul
 		row,
 		candidates,
 		factors,
+		allFactors,
 		notes: edition.notes,
 		caution
 	};

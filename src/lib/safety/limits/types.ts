@@ -136,7 +136,10 @@ export interface LimitResult {
 	row: LimitCandidate;
 	/** Every row evaluated (thermal and photochemical where both apply). */
 	candidates: LimitCandidate[];
+	/** Factors the evaluated rows use. */
 	factors: FactorReport[];
+	/** Every factor and break time of the edition defined at this case (for display). */
+	allFactors: FactorReport[];
 	notes: readonly string[];
 	caution: string;
 }

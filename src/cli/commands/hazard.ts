@@ -1,0 +1,135 @@
+/**
+ * `npx beamwright hazard`: hazard distances and eyewear OD for one beam, or the whole-lab table from a
+ * CSV (`--inventory lasers.csv [--format csv]`). JSON (or CSV) with the caution.
+ */
+import { readFile } from 'node:fs/promises';
+import { allowOnly, CliInputError, optChoice, optQuantity, optString, parseArgs, requireQuantity } from '../args';
+import { assessBeam } from '../../lib/safety/assess';
+import { viewingCases } from '../../lib/safety/exposure';
+import { assessInventory, inventoryToCsv } from '../../lib/safety/inventory';
+import { standardChoices } from '../../lib/safety/limits/index';
+import { durationSpec, wavelengthSpec } from './mpe';
+
+export const summary = 'Laser hazard distances (NOHD by formula and along the beam), eyewear OD, aided viewing and diffuse reflection — or a whole-lab table from a CSV. A first-pass estimate.';
+export const usage = [
+	'npx beamwright hazard --standard eu-2006-25|iec-60825-1-2014|stricter --wavelength 514.5nm --power 5W --diameter 2.83mm --divergence 1.41mrad [--duration 0.25s | --viewing accidental|worst-case|deliberate]',
+	'      [--pulse-energy 1mJ --pulse-width 10ns [--repetition-rate 10Hz]] [--source-angle 1.5mrad]',
+	'      [--optic-aperture 50mm --optic-magnification 7 --optic-transmission 0.9] [--reflectance 0.9 [--viewing-angle 0deg]]',
+	'   or: npx beamwright hazard --inventory lasers.csv [--standard …] [--format json|csv]'
+].join('\n');
+
+const single = ['standard', 'wavelength', 'power', 'pulse-energy', 'pulse-width', 'repetition-rate', 'diameter', 'divergence', 'duration', 'viewing', 'source-angle', 'optic-aperture', 'optic-magnification', 'optic-transmission', 'reflectance', 'viewing-angle'];
+
+async function inventory(path: string, argv: ReturnType<typeof parseArgs>) {
+	allowOnly(argv, ['inventory', 'standard', 'format']);
+	const standard = optChoice(argv, 'standard', standardChoices, 'stricter');
+	const format = optChoice(argv, 'format', ['json', 'csv'] as const, 'json');
+	let text: string;
+	try {
+		text = await readFile(path, 'utf8');
+	} catch (e) {
+		throw new CliInputError(`--inventory: cannot read "${path}" — ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`);
+	}
+	const table = assessInventory(text, standard);
+	if (table.rows.length === 0) {
+		const first = table.issues[0];
+		throw new CliInputError(`--inventory: no laser could be read from "${path}"${first ? ` — line ${first.line}: ${first.message}` : ''}`);
+	}
+	if (format === 'csv') return inventoryToCsv(table);
+	return {
+		standard: table.standard,
+		lasers: table.rows.map((r) =>
+			r.ok
+				? {
+						line: r.line,
+						name: r.name,
+						room: r.room,
+						ok: true,
+						wavelength_m: r.result.wavelength_m,
+						emission: r.result.emission,
+						exposure_s: r.result.exposure.duration_s,
+						exposureBasis: r.result.exposure.basis,
+						standardId: r.result.standardId,
+						mpe_W_m2: r.result.mpe_W_m2,
+						mpe_J_m2: r.result.mpe_J_m2,
+						rule: r.result.rule,
+						limitingAperture_m: r.result.limitingAperture_m,
+						nohdFormula_m: r.result.nohdFormula_m,
+						nohd_m: r.result.nohd_m,
+						hazardDistance_m: r.result.hazardDistance_m,
+						odRequired: r.result.odRequired,
+						odWhole: r.result.odWhole,
+						note: r.note
+					}
+				: { line: r.line, name: r.name, room: r.room, ok: false, message: r.message, note: r.note }
+		),
+		issues: table.issues,
+		caution: table.caution
+	};
+}
+
+export async function run(argv: string[]) {
+	const args = parseArgs(argv);
+	const inv = optString(args, 'inventory');
+	if (inv !== undefined) return inventory(inv, args);
+	allowOnly(args, single);
+	const standard = optChoice(args, 'standard', standardChoices, 'stricter');
+	const wavelength_m = requireQuantity(args, 'wavelength', wavelengthSpec, '514.5nm');
+	const power_W = optQuantity(args, 'power', { kind: 'power', above_si: 0, max_si: 1e15 });
+	const pulseEnergy_J = optQuantity(args, 'pulse-energy', { kind: 'energy', above_si: 0, max_si: 1e9 });
+	const pulseWidth_s = optQuantity(args, 'pulse-width', { kind: 'time', min_si: 1e-13, max_si: 3e4 });
+	const repetitionRate_Hz = optQuantity(args, 'repetition-rate', { kind: 'frequency', above_si: 0, max_si: 1e15 });
+	if (power_W === undefined && pulseEnergy_J === undefined) throw new CliInputError('--power: required — e.g. --power 5W (or --pulse-energy 1mJ --pulse-width 10ns for a pulsed laser)');
+	if (power_W !== undefined && (pulseEnergy_J !== undefined || pulseWidth_s !== undefined || repetitionRate_Hz !== undefined))
+		throw new CliInputError('--power: give either --power (CW) or --pulse-energy with --pulse-width [--repetition-rate], not both');
+	if (pulseEnergy_J !== undefined && pulseWidth_s === undefined) throw new CliInputError('--pulse-width: required with --pulse-energy — e.g. --pulse-width 10ns');
+	if (pulseEnergy_J === undefined && (pulseWidth_s !== undefined || repetitionRate_Hz !== undefined)) throw new CliInputError('--pulse-energy: required with --pulse-width/--repetition-rate — e.g. --pulse-energy 1mJ');
+	const diameter_m = requireQuantity(args, 'diameter', { kind: 'length', above_si: 0, max_si: 10 }, '2.83mm');
+	const fullDivergence_rad = requireQuantity(args, 'divergence', { kind: 'angle', above_si: 0, max_si: Math.PI }, '1.41mrad');
+	const duration_s = optQuantity(args, 'duration', durationSpec);
+	if (duration_s !== undefined && args.options.has('viewing')) throw new CliInputError('--viewing: sets the default duration — give it or --duration, not both');
+	const viewing = optChoice(args, 'viewing', viewingCases, 'accidental');
+	const alpha_rad = optQuantity(args, 'source-angle', { kind: 'angle', min_si: 0, max_si: Math.PI });
+	const oa = optQuantity(args, 'optic-aperture', { kind: 'length', above_si: 0, max_si: 10 });
+	const om = optQuantity(args, 'optic-magnification', { kind: 'dimensionless', above_si: 0, max_si: 1e4 });
+	const ot = optQuantity(args, 'optic-transmission', { kind: 'dimensionless', above_si: 0, max_si: 1 });
+	const opticGiven = [oa, om].filter((x) => x !== undefined).length;
+	if (opticGiven === 1) throw new CliInputError(`--${oa === undefined ? 'optic-aperture' : 'optic-magnification'}: required with the other optic option — e.g. --optic-aperture 50mm --optic-magnification 7`);
+	const optic = oa !== undefined && om !== undefined ? { objective_m: oa, magnification: om, transmission: ot ?? 1 } : undefined;
+	const reflectance = optQuantity(args, 'reflectance', { kind: 'dimensionless', min_si: 0, max_si: 1 });
+	const viewingAngle_rad = optQuantity(args, 'viewing-angle', { kind: 'angle', min_si: 0, max_si: Math.PI / 2 });
+	if (viewingAngle_rad !== undefined && reflectance === undefined) throw new CliInputError('--reflectance: required with --viewing-angle — e.g. --reflectance 0.9');
+	const diffuse = reflectance !== undefined ? { reflectance, viewingAngle_rad: viewingAngle_rad ?? 0 } : undefined;
+	const a = assessBeam({ standard, wavelength_m, power_W, pulseEnergy_J, pulseWidth_s, repetitionRate_Hz, diameter_m, fullDivergence_rad, duration_s, viewing, alpha_rad, optic, diffuse });
+	return {
+		mpe_W_m2: a.mpe_W_m2,
+		nohdFormula_m: a.nohdFormula_m,
+		nohd_m: a.nohd_m,
+		odRequired: a.odRequired,
+		odWhole: a.odWhole,
+		hazardDistance_m: a.hazardDistance_m,
+		hazardDistanceFrom: a.hazardDistanceFrom,
+		mpe_J_m2: a.mpe_J_m2,
+		limitingAperture_m: a.limitingAperture_m,
+		rule: a.rule,
+		mechanism: a.mechanism,
+		limitSource: a.limitSource,
+		factors: a.factors,
+		pulseRules: a.pulseRules,
+		standard: a.standard,
+		standardId: a.standardId,
+		wavelength_m: a.wavelength_m,
+		emission: a.emission,
+		power_W: a.power_W,
+		exposure: a.exposure,
+		exit: a.exit,
+		odAt_m: a.odAt_m,
+		aided: a.aided,
+		diffuse: a.diffuse,
+		notes: [
+			'nohd_m: aperture-averaged, along the beam propagated from its waist at the exit aperture; nohdFormula_m: far-field formula with 1/e diameter and divergence (d/√2, Θ/√2); hazardDistance_m is the larger.',
+			...a.notes
+		],
+		caution: a.caution
+	};
+}

@@ -1,0 +1,48 @@
+import { readFile } from 'node:fs/promises';
+import { allowOnly, CliInputError, optChoice, parseArgs } from '../args';
+import { compileSource, type FieldError } from '../../lib/document/compile';
+import { parseSetupJson } from '../../lib/document/schema';
+import { compileMatch, searchMatches } from '../../lib/optics/solve';
+
+export const summary = 'Mode matching from the lens inventory of a setup document’s "match" section: ranked lens placements, efficiency, tolerances.';
+export const usage = 'npx beamwright match setup.json [--rank robust|efficiency|tolerance|length] [--top 10]';
+
+export async function run(argv: string[]) {
+	const args = parseArgs(argv);
+	allowOnly(args, ['rank', 'top']);
+	const file = args.positionals[0];
+	if (!file) throw new CliInputError('setup: a setup JSON file is required — e.g. npx beamwright match setup.json');
+	let text: string;
+	try {
+		text = await readFile(file, 'utf8');
+	} catch {
+		throw new CliInputError(`setup: cannot read "${file}"`);
+	}
+	const parsed = parseSetupJson(text);
+	if (!parsed.ok) throw new CliInputError(`setup: ${file} is refused — ${parsed.reason}`);
+	if (!parsed.doc.match) throw new CliInputError(`setup: ${file} has no "match" section (target, inventory, rail)`);
+	const errs: FieldError[] = [];
+	const source = compileSource(parsed.doc, errs);
+	if (errs.length) throw new CliInputError(`setup: ${errs[0].path}: ${errs[0].message}`);
+	const c = compileMatch(parsed.doc.match, source);
+	if (!c.ok) throw new CliInputError(`setup: ${c.errors[0]}`);
+	const rank = optChoice(args, 'rank', ['robust', 'efficiency', 'tolerance', 'length'] as const, (c.problem.rankBy ?? 'robust') as 'robust');
+	const topText = args.options.get('top');
+	const top = topText === undefined ? 10 : Number(topText);
+	if (!(Number.isInteger(top) && top >= 1 && top <= 100)) throw new CliInputError(`--top: must be a whole number from 1 to 100 — got ${String(topText)}`);
+	const solutions = searchMatches({ ...c.problem, rankBy: rank, keep: top });
+	return {
+		target: c.problem.target.what,
+		rankedBy: rank,
+		solutions: solutions.map((s, i) => ({
+			rank: i + 1,
+			efficiency: s.efficiency,
+			couplingX: s.couplingX,
+			couplingY: s.couplingY,
+			transmitted: s.transmitted,
+			sensitivity: s.sensitivity,
+			length_m: s.length_m,
+			lenses: s.lenses.map((l) => ({ label: l.label, f_m: l.f_m, z_m: l.z_m, lossPer1mm: l.positionLoss, lossPer1pctFocal: l.focalLoss }))
+		}))
+	};
+}

@@ -1,0 +1,164 @@
+/**
+ * Resonator eigenmodes.
+ *
+ * Two-mirror linear cavity (Kogelnik & Li, "Laser Beams and Resonators", Appl. Opt. 5, 1550 (1966),
+ * §V, eqs. 61–64): g_i = 1 − L/R_i; stable when 0 < g1·g2 < 1; mirror radii R > 0 for concave mirrors,
+ * Infinity for a flat mirror. The mode is the TEM00 mode of wavelength λ in a medium of index 1.
+ *
+ * General cavities (ring, folded, with tilted curved mirrors and plates) are given as the list of parts
+ * met in one round trip; the round-trip reduced matrix M = [A B; C D] per axis fixes the eigenmode
+ * q = (A·q + B)/(C·q + D), stable when |(A + D)/2| < 1 (Siegman, "Lasers", 1986, §21.1, eqs. 21.8–21.12):
+ * 1/q = (D − A)/(2B) − i·sqrt(1 − m²)/|B| with m = (A + D)/2.
+ */
+import { beamFromQ, type QHat } from './beam';
+import { requirePositive, requireThat } from './constants';
+import { elementMatrices, freeSpaceMatrix, identity, mul, type ElementSpec, type Mat2 } from './elements';
+
+export interface TwoMirrorCavity {
+	stable: boolean;
+	/** Why the cavity has no mode ('unstable', 'marginal'), or null. */
+	reason: string | null;
+	g1: number;
+	g2: number;
+	/** null when the cavity has no confined mode. */
+	w0_m: number | null;
+	waistFromMirror1_m: number | null;
+	wMirror1_m: number | null;
+	wMirror2_m: number | null;
+	zR_m: number | null;
+}
+
+/**
+ * Two-mirror cavity mode (Kogelnik & Li 1966, eqs. 61–64):
+ * w1² = (λL/π)·sqrt(g2/(g1(1 − g1g2))), w2² = (λL/π)·sqrt(g1/(g2(1 − g1g2))),
+ * w0² = (λL/π)·sqrt(g1g2(1 − g1g2)/(g1 + g2 − 2g1g2)²), t1 = L·g2(1 − g1)/(g1 + g2 − 2g1g2).
+ * The symmetric cavity (g1 = g2 = g) uses the limit w0² = (λL/2π)·sqrt((1 + g)/(1 − g)), t1 = L/2, which
+ * stays defined for the confocal cavity (g = 0).
+ * Example: R1 = R2 = 1 m, L = 0.5 m, λ = 1064 nm → g = 0.5, w0 = 0.38295 mm at 0.25 m, w on the mirrors 0.44220 mm.
+ */
+export function twoMirrorCavity(r1_m: number, r2_m: number, length_m: number, wavelength_m: number): TwoMirrorCavity {
+	requirePositive(length_m, 'cavity length', 'm');
+	requirePositive(wavelength_m, 'wavelength', 'm');
+	requireThat(r1_m !== 0 && !Number.isNaN(r1_m), 'mirror 1 radius', 'non-zero (Infinity for flat)', r1_m, 'm');
+	requireThat(r2_m !== 0 && !Number.isNaN(r2_m), 'mirror 2 radius', 'non-zero (Infinity for flat)', r2_m, 'm');
+	const L = length_m;
+	const g1 = 1 - (Number.isFinite(r1_m) ? L / r1_m : 0);
+	const g2 = 1 - (Number.isFinite(r2_m) ? L / r2_m : 0);
+	const none = (reason: string): TwoMirrorCavity => ({ stable: false, reason, g1, g2, w0_m: null, waistFromMirror1_m: null, wMirror1_m: null, wMirror2_m: null, zR_m: null });
+	const p = g1 * g2;
+	const eps = 1e-12;
+	const k = (wavelength_m * L) / Math.PI;
+	if (Math.abs(g1 - g2) <= eps && Math.abs(g1) < 1 - eps) {
+		const g = g1;
+		const w0sq = (k / 2) * Math.sqrt((1 + g) / (1 - g));
+		const wm = Math.sqrt(k / Math.sqrt(1 - g * g));
+		return { stable: true, reason: null, g1, g2, w0_m: Math.sqrt(w0sq), waistFromMirror1_m: L / 2, wMirror1_m: wm, wMirror2_m: wm, zR_m: (Math.PI * w0sq) / wavelength_m };
+	}
+	if (p < -eps || p > 1 + eps) return none('unstable: g1·g2 must lie between 0 and 1');
+	if (p <= eps || p >= 1 - eps) return none('marginal: g1·g2 is on the stability boundary (0 or 1), the mode is not confined');
+	const den = g1 + g2 - 2 * p;
+	const w0sq = k * Math.sqrt((p * (1 - p)) / (den * den));
+	return {
+		stable: true,
+		reason: null,
+		g1,
+		g2,
+		w0_m: Math.sqrt(w0sq),
+		waistFromMirror1_m: (L * g2 * (1 - g1)) / den,
+		wMirror1_m: Math.sqrt(k * Math.sqrt(g2 / (g1 * (1 - p)))),
+		wMirror2_m: Math.sqrt(k * Math.sqrt(g1 / (g2 * (1 - p)))),
+		zR_m: (Math.PI * w0sq) / wavelength_m
+	};
+}
+
+/** One part of a round trip: a stretch of medium, or an element (curved mirror at an angle, plate, lens…). */
+export type RoundTripPart = { kind: 'space'; length_m: number; index?: number } | { kind: 'element'; spec: ElementSpec };
+
+export interface AxisEigenmode {
+	/** (A + D)/2 of the round trip on this axis. */
+	halfTrace: number;
+	stable: boolean;
+	/** Eigen q̂ at the reference plane (the start of the round trip), null when unstable. */
+	q: QHat | null;
+	w_m: number | null;
+	/** Wavefront radius at the reference plane; null for a flat wavefront or no mode. */
+	R_m: number | null;
+	w0_m: number | null;
+	/** Distance from the reference plane to the waist, + downstream (along the first part). */
+	toWaist_m: number | null;
+}
+
+export interface RoundTripEigenmode {
+	x: AxisEigenmode;
+	y: AxisEigenmode;
+	matrices: { x: Mat2; y: Mat2 };
+	stable: boolean;
+}
+
+/** Reduced round-trip matrices per axis; parts are listed in the order the beam meets them. */
+export function roundTripMatrices(parts: RoundTripPart[]): { x: Mat2; y: Mat2 } {
+	requireThat(parts.length > 0, 'round trip', 'at least one part', parts.length);
+	let x: Mat2 = identity;
+	let y: Mat2 = identity;
+	for (const p of parts) {
+		if (p.kind === 'space') {
+			requireThat(Number.isFinite(p.length_m) && p.length_m >= 0, 'round-trip distance', '≥ 0 m', p.length_m, 'm');
+			const f = freeSpaceMatrix(p.length_m, p.index ?? 1);
+			x = mul(f, x);
+			y = mul(f, y);
+		} else {
+			const m = elementMatrices(p.spec);
+			x = mul(m.x, x);
+			y = mul(m.y, y);
+		}
+	}
+	return { x, y };
+}
+
+/**
+ * Eigenmode of one axis from its round-trip matrix (Siegman 1986, eqs. 21.8–21.12).
+ * Example: confocal two-mirror round trip at λ = 1064 nm (R = L = 1 m, reference plane at a mirror)
+ * is on the boundary (|m| = 1): reported unstable.
+ */
+export function axisEigenmode(m: Mat2, wavelength_m: number): AxisEigenmode {
+	requirePositive(wavelength_m, 'wavelength', 'm');
+	const [A, B, C, D] = m;
+	const half = (A + D) / 2;
+	const none: AxisEigenmode = { halfTrace: half, stable: false, q: null, w_m: null, R_m: null, w0_m: null, toWaist_m: null };
+	if (!(Math.abs(half) < 1 - 1e-12) || Math.abs(B) < 1e-300) return none;
+	const s = Math.sqrt(1 - half * half);
+	const invRe = (D - A) / (2 * B);
+	const invIm = -s / Math.abs(B);
+	const den = invRe * invRe + invIm * invIm;
+	const q = { re: invRe / den, im: -invIm / den };
+	void C;
+	const b = beamFromQ(q, { wavelength_m, m2: 1 });
+	return { halfTrace: half, stable: true, q, w_m: b.w_m, R_m: Number.isFinite(b.R_m) ? b.R_m : null, w0_m: b.w0_m, toWaist_m: b.toWaist_m };
+}
+
+/** Eigenmode of a general cavity given as one round trip; x and y separately (simple astigmatism). */
+export function roundTripEigenmode(parts: RoundTripPart[], wavelength_m: number): RoundTripEigenmode {
+	const matrices = roundTripMatrices(parts);
+	const x = axisEigenmode(matrices.x, wavelength_m);
+	const y = axisEigenmode(matrices.y, wavelength_m);
+	return { x, y, matrices, stable: x.stable && y.stable };
+}
+
+/**
+ * Round trip of a linear two-mirror cavity with optional parts between the mirrors, starting just after
+ * mirror 1 towards mirror 2: one way, mirror 2, the way back, mirror 1. Mirrors at normal incidence.
+ * `oneWay` lists what lies between mirror 1 and mirror 2 (spaces and symmetric elements: lenses, plates).
+ */
+export function linearRoundTrip(r1_m: number, r2_m: number, oneWay: RoundTripPart[]): RoundTripPart[] {
+	const back = [...oneWay].reverse().map((p): RoundTripPart => {
+		if (p.kind === 'element' && p.spec.kind === 'thickLens') return { kind: 'element', spec: { ...p.spec, r1_m: -p.spec.r2_m, r2_m: -p.spec.r1_m } };
+		if (p.kind === 'element' && p.spec.kind === 'interface') throw new RangeError('intracavity part must be symmetric on the way back — got an interface; use a medium or a plate');
+		if (p.kind === 'element' && p.spec.kind === 'abcd') {
+			const r = (m: Mat2): Mat2 => [m[3], m[1], m[2], m[0]];
+			return { kind: 'element', spec: { kind: 'abcd', x: r(p.spec.x), y: r(p.spec.y) } };
+		}
+		return p;
+	});
+	const mirror = (r: number): RoundTripPart => ({ kind: 'element', spec: { kind: 'mirror', r_m: r, angle_rad: 0, plane: 'x' } });
+	return [...oneWay, mirror(r2_m), ...back, mirror(r1_m)];
+}

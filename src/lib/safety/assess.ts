@@ -1,0 +1,179 @@
+/**
+ * One laser beam, assessed end to end: exposure duration (default or given), exposure limit (CW,
+ * single pulse or pulse train), NOHD by the far-field formula and along the propagated beam
+ * (aperture-averaged; the larger is used), eyewear OD at the worst reachable point, and optionally
+ * aided viewing and a diffuse reflection. Used by the CLI `hazard` command, the whole-lab table and
+ * the hazard workspace.
+ *
+ * The beam leaves the exit aperture with its waist there: 1/e² diameter d and 1/e² full divergence Θ
+ * (w(z) = √((d/2)² + (Θz/2)²)); the worst reachable point is the exit aperture itself.
+ */
+import { caution } from './cautions';
+import { apertureAveragedIrradiance_W_m2, peakIrradiance_W_m2 } from './aperture';
+import { defaultExposureDuration, evaluatePulseTrain, type ViewingCase } from './exposure';
+import { diffuseHazardDistance_m, nohdFormula, opticalGain, requiredOpticalDensity, type ViewingOptic } from './hazard';
+import { evaluateLimit, type StandardChoice } from './limits/index';
+import type { FactorReport, LimitResult, Mechanism, StandardId } from './limits/types';
+import { gaussianNohd_m } from './propagated';
+
+export interface BeamAssessmentInput {
+	standard: StandardChoice;
+	wavelength_m: number;
+	/** Continuous-wave power, W (give this, or pulse energy and width). */
+	power_W?: number;
+	pulseEnergy_J?: number;
+	pulseWidth_s?: number;
+	/** Without a rate a pulse is a single pulse. */
+	repetitionRate_Hz?: number;
+	/** 1/e² diameter at the exit aperture, m. */
+	diameter_m: number;
+	/** 1/e² full-angle divergence, rad. */
+	fullDivergence_rad: number;
+	/** Exposure duration, s; default by common practice from `viewing`. */
+	duration_s?: number;
+	viewing?: ViewingCase;
+	alpha_rad?: number;
+	optic?: ViewingOptic;
+	diffuse?: { reflectance: number; viewingAngle_rad: number };
+}
+
+export type EmissionKind = 'continuous' | 'single pulse' | 'pulse train';
+
+export interface BeamAssessment {
+	standardId: StandardId;
+	standard: string;
+	wavelength_m: number;
+	emission: EmissionKind;
+	/** Power compared with `mpe_W_m2`: CW power, average power of a train, or pulse energy ÷ width. */
+	power_W: number;
+	exposure: { duration_s: number; basis: string; source: string; isDefault: boolean };
+	/** Limit as an irradiance over the exposure (average irradiance for a train), W/m². */
+	mpe_W_m2: number;
+	/** Limit as a radiant exposure: over the duration (CW) or per pulse, J/m². */
+	mpe_J_m2: number;
+	rule: string;
+	mechanism: Mechanism;
+	limitSource: string;
+	limitingAperture_m: number;
+	factors: FactorReport[];
+	/** Each pulse rule's per-pulse limit (pulse trains only). */
+	pulseRules?: Array<{ rule: string; applies: boolean; perPulse_J_m2: number; detail: string }>;
+	nohdFormula_m: number;
+	/** Aperture-averaged NOHD along the propagated beam. */
+	nohd_m: number;
+	/** The larger of the two, and which it is. */
+	hazardDistance_m: number;
+	hazardDistanceFrom: 'beam' | 'formula';
+	exit: { peak_W_m2: number; averaged_W_m2: number };
+	odRequired: number;
+	odWhole: number;
+	/** Where the OD applies: the worst reachable point (the exit aperture), m. */
+	odAt_m: number;
+	aided?: { gain: number; nohdFormula_m: number; nohd_m: number; hazardDistance_m: number };
+	diffuse?: { reflectance: number; viewingAngle_rad: number; distance_m: number };
+	notes: readonly string[];
+	caution: string;
+}
+
+function positive(v: number | undefined, name: string, unit: string): number {
+	if (!(v !== undefined && Number.isFinite(v) && v > 0)) throw new RangeError(`${name} must be a finite number > 0 ${unit} — got ${v} ${unit}`);
+	return v;
+}
+
+/**
+ * Assess one beam.
+ * Example: 514.5 nm, 5 W, d = 2.83 mm, Θ = 1.41 mrad, 0.25 s, EU 2006/25 → E_MPE = 25.46 W/m²,
+ * NOHD formula 499.6 m, along the beam 501.6 m, OD 3.71 (4).
+ */
+export function assessBeam(input: BeamAssessmentInput): BeamAssessment {
+	const { wavelength_m, standard, diameter_m, fullDivergence_rad } = input;
+	positive(diameter_m, 'beam diameter', 'm');
+	positive(fullDivergence_rad, 'beam divergence', 'rad');
+	const pulsed = input.pulseEnergy_J !== undefined || input.pulseWidth_s !== undefined || input.repetitionRate_Hz !== undefined;
+	if (pulsed && input.power_W !== undefined) throw new RangeError('give either a CW power or pulse energy and width — got both');
+	if (!pulsed && input.power_W === undefined) throw new RangeError('power is required — give a CW power, or pulse energy and width');
+	const target = 'eye' as const;
+	let emission: EmissionKind = 'continuous';
+	let exposure: BeamAssessment['exposure'];
+	if (pulsed && input.repetitionRate_Hz === undefined) {
+		const tau = positive(input.pulseWidth_s, 'pulse width', 's');
+		emission = 'single pulse';
+		if (input.duration_s !== undefined && Math.abs(input.duration_s - tau) > 1e-9 * tau)
+			throw new RangeError(`a single pulse is exposed for its width (${tau} s) — got exposure duration ${input.duration_s} s; give a repetition rate for a pulse train`);
+		exposure = { duration_s: tau, basis: 'A single pulse: the exposure lasts one pulse width.', source: 'common practice', isDefault: input.duration_s === undefined };
+	} else {
+		if (pulsed) emission = 'pulse train';
+		const d = defaultExposureDuration(wavelength_m, input.viewing ?? 'accidental', target);
+		exposure = input.duration_s !== undefined
+			? { duration_s: input.duration_s, basis: 'Exposure duration given by the user.', source: 'input', isDefault: false }
+			: { ...d, isDefault: true };
+	}
+	const t = exposure.duration_s;
+	let power_W: number;
+	let mpe_W_m2: number;
+	let mpe_J_m2: number;
+	let lim: LimitResult;
+	let pulseRules: BeamAssessment['pulseRules'];
+	let rule: string;
+	if (emission === 'pulse train') {
+		const Q = positive(input.pulseEnergy_J, 'pulse energy', 'J');
+		const f = positive(input.repetitionRate_Hz, 'repetition rate', 'Hz');
+		const pt = evaluatePulseTrain(standard, { wavelength_m, duration_s: t, target, alpha_rad: input.alpha_rad, pulseWidth_s: positive(input.pulseWidth_s, 'pulse width', 's'), repetitionRate_Hz: f });
+		power_W = Q * f;
+		mpe_W_m2 = pt.averageIrradiance_W_m2;
+		mpe_J_m2 = pt.perPulse_J_m2;
+		rule = pt.rule;
+		pulseRules = pt.rules.map(({ rule, applies, perPulse_J_m2, detail }) => ({ rule, applies, perPulse_J_m2, detail }));
+		lim = { ...pt.singlePulse, standardId: pt.standardId, standard: pt.standard, limitingAperture_m: pt.limitingAperture_m, factors: pt.factors, notes: pt.notes };
+		lim.mechanism = pt.rule === 'average power' ? pt.average.mechanism : pt.singlePulse.mechanism;
+	} else {
+		lim = evaluateLimit(standard, { wavelength_m, duration_s: t, target, alpha_rad: input.alpha_rad });
+		power_W = emission === 'single pulse' ? positive(input.pulseEnergy_J, 'pulse energy', 'J') / t : positive(input.power_W, 'power', 'W');
+		mpe_W_m2 = lim.irradiance_W_m2;
+		mpe_J_m2 = lim.radiantExposure_J_m2;
+		rule = `${lim.row.expression}${lim.row.condition ? ` (${lim.row.condition})` : ''} — ${lim.mechanism}`;
+	}
+	const D = lim.limitingAperture_m;
+	const w0 = diameter_m / 2;
+	const th = fullDivergence_rad / 2;
+	const nohdF = nohdFormula({ power_W, mpe_W_m2, diameter_m, fullDivergence_rad }).nohd_m;
+	const nohdB = gaussianNohd_m({ power_W, mpe_W_m2, aperture_m: D, waistRadius_m: w0, halfAngle_rad: th });
+	const averaged = apertureAveragedIrradiance_W_m2(power_W, D, w0);
+	const od = requiredOpticalDensity(averaged, mpe_W_m2);
+	let aided: BeamAssessment['aided'];
+	if (input.optic) {
+		const gain = opticalGain(input.optic, D);
+		const f = nohdFormula({ power_W, mpe_W_m2, diameter_m, fullDivergence_rad, gain }).nohd_m;
+		const b = gaussianNohd_m({ power_W, mpe_W_m2, aperture_m: D, waistRadius_m: w0, halfAngle_rad: th, optic: input.optic });
+		aided = { gain, nohdFormula_m: f, nohd_m: b, hazardDistance_m: Math.max(f, b) };
+	}
+	const diffuse = input.diffuse ? { ...input.diffuse, distance_m: diffuseHazardDistance_m({ power_W, mpe_W_m2, ...input.diffuse }) } : undefined;
+	return {
+		standardId: lim.standardId,
+		standard: lim.standard,
+		wavelength_m,
+		emission,
+		power_W,
+		exposure,
+		mpe_W_m2,
+		mpe_J_m2,
+		rule,
+		mechanism: lim.mechanism,
+		limitSource: lim.row.source,
+		limitingAperture_m: D,
+		factors: lim.factors,
+		pulseRules,
+		nohdFormula_m: nohdF,
+		nohd_m: nohdB,
+		hazardDistance_m: Math.max(nohdF, nohdB),
+		hazardDistanceFrom: nohdB >= nohdF ? 'beam' : 'formula',
+		exit: { peak_W_m2: peakIrradiance_W_m2(power_W, w0), averaged_W_m2: averaged },
+		odRequired: od.od,
+		odWhole: od.odWhole,
+		odAt_m: 0,
+		aided,
+		diffuse,
+		notes: lim.notes,
+		caution
+	};
+}

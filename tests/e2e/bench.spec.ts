@@ -1,0 +1,134 @@
+import { test, expect, type Page } from '@playwright/test';
+
+/** Text of the waist table body, to see it change. */
+async function waistTable(page: Page) {
+	return (await page.getByTestId('waist-table').locator('tbody').innerText()).trim();
+}
+
+async function expectNoBrokenNumbers(page: Page) {
+	// Messages may quote what the user typed ("NaN"); everything else must be a real number.
+	const text = (await page.locator('main').innerText()).replace(/"[^"]*"/g, '');
+	expect(text).not.toMatch(/\bNaN\b|\bundefined\b|Infinity/);
+}
+
+test.beforeEach(async ({ page }) => {
+	await page.goto('/');
+	await page.evaluate(() => localStorage.clear());
+	await page.goto('/');
+	await expect(page.getByTestId('caustic-plot')).toBeVisible();
+});
+
+test('loads the demo setup and shows waists and the beam at each element', async ({ page }) => {
+	await expect(page.getByRole('heading', { name: 'Source' })).toBeVisible();
+	await expect(page.getByTestId('waist-table')).toContainText('after M2');
+	await expect(page.getByTestId('element-table')).toContainText('L1');
+	await expect(page.getByTestId('waist-marker').first()).toBeVisible();
+	await expectNoBrokenNumbers(page);
+});
+
+test('editing the source changes the waists', async ({ page }) => {
+	const before = await waistTable(page);
+	const field = page.getByTestId('src-x-waist');
+	await field.fill('0.6 mm');
+	await expect.poll(() => waistTable(page)).not.toBe(before);
+	await expectNoBrokenNumbers(page);
+});
+
+test('add a lens, drag it along the axis, and the waist table follows', async ({ page }) => {
+	await page.getByTestId('add-kind').selectOption('thinLens');
+	await page.getByTestId('add-element').click();
+	// The new lens is L3, placed past the last element; give it a position and focal length.
+	await page.getByTestId('el-L3-at').fill('1000 mm');
+	await page.getByTestId('el-L3-f').fill('150 mm');
+	await expect(page.getByTestId('element-table')).toContainText('L3');
+	const before = await waistTable(page);
+	const handle = page.getByTestId('handle-L3');
+	await handle.scrollIntoViewIfNeeded();
+	const box = (await handle.boundingBox())!;
+	await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
+	await page.mouse.down();
+	for (let i = 1; i <= 10; i++) await page.mouse.move(box.x + box.width / 2 + i * 6, box.y + box.height / 2);
+	await page.mouse.up();
+	await expect.poll(() => waistTable(page)).not.toBe(before);
+	const at = await page.getByTestId('el-L3-at').inputValue();
+	expect(parseFloat(at)).toBeGreaterThan(1000);
+	await expectNoBrokenNumbers(page);
+});
+
+const badInputs = ['', '0', '-3 mm', 'NaN', '5 kg', '1e400 m', 'abc'];
+
+test('bad input in every numeric field shows a message and nothing breaks', async ({ page }) => {
+	// Open every element so all of its fields are visible, one at a time.
+	const fieldIds = ['src-wavelength', 'src-index', 'src-x-m2', 'src-x-waist', 'src-x-waistAt', 'src-y-m2', 'src-y-waist', 'src-y-waistAt', 'view-end'];
+	for (const id of fieldIds) {
+		const input = page.getByTestId(id);
+		const original = await input.inputValue();
+		for (const bad of badInputs) {
+			await input.fill(bad);
+			// "0" is a valid waist location; every other case must be refused with a message.
+			const valid = bad === '0' && false;
+			if (!valid) {
+				const describedBy = await input.getAttribute('aria-describedby');
+				const invalid = await input.getAttribute('aria-invalid');
+				if (invalid === 'true') {
+					await expect(page.locator(`#${describedBy}`)).toBeVisible();
+					await expect(page.getByTestId('setup-error')).toBeVisible();
+				} else {
+					// Accepted: it must be a genuinely valid value for that field (e.g. "0" index is not).
+					expect(`${id}=${bad}`).toMatch(/waistAt=(0|-3 mm)$/);
+				}
+			}
+			await expect(page.getByTestId('caustic-plot')).toBeVisible();
+			await expectNoBrokenNumbers(page);
+			// What the user typed is kept.
+			await expect(input).toHaveValue(bad);
+		}
+		await input.fill(original);
+	}
+	await expect(page.getByTestId('setup-error')).toHaveCount(0);
+
+	// Element fields: open L2 and try its focal length, position and aperture.
+	await page.getByTestId('element-L2').getByRole('button', { name: /L2/ }).first().click();
+	for (const id of ['el-L2-f', 'el-L2-at', 'el-L2-aperture']) {
+		const input = page.getByTestId(id);
+		const original = await input.inputValue();
+		for (const bad of badInputs) {
+			await input.fill(bad);
+			const invalid = await input.getAttribute('aria-invalid');
+			const acceptable = (id === 'el-L2-aperture' && bad === '') || (id === 'el-L2-at' && (bad === '0' || bad === '-3 mm')) || (id === 'el-L2-f' && bad === '-3 mm');
+			if (!acceptable) expect(invalid, `${id} = "${bad}"`).toBe('true');
+			await expectNoBrokenNumbers(page);
+			await expect(page.getByTestId('caustic-plot')).toBeVisible();
+		}
+		await input.fill(original);
+	}
+	await expect(page.getByTestId('setup-error')).toHaveCount(0);
+});
+
+test('a reload restores the setup', async ({ page }) => {
+	await page.getByTestId('src-wavelength').fill('532 nm');
+	await page.getByTestId('add-element').click();
+	await page.waitForTimeout(400); // autosave debounce
+	await page.reload();
+	await expect(page.getByTestId('src-wavelength')).toHaveValue('532 nm');
+	await expect(page.getByTestId('element-L3')).toBeVisible();
+});
+
+test('a rejected import leaves the current work untouched and says why', async ({ page }) => {
+	await page.getByTestId('src-wavelength').fill('780 nm');
+	await page.getByTestId('import-input').setInputFiles({ name: 'broken.json', mimeType: 'application/json', buffer: Buffer.from('{"format":"beamwright-setup","version":1,"name":3}') });
+	await expect(page.getByTestId('import-message')).toContainText('not loaded');
+	await expect(page.getByTestId('import-message')).toContainText('unchanged');
+	await expect(page.getByTestId('src-wavelength')).toHaveValue('780 nm');
+});
+
+test('export then import round-trips the setup', async ({ page }) => {
+	await page.getByTestId('src-wavelength').fill('633 nm');
+	const download = page.waitForEvent('download');
+	await page.getByTestId('export').click();
+	const file = await (await download).path();
+	await page.getByRole('button', { name: 'New' }).click();
+	await expect(page.getByTestId('src-wavelength')).toHaveValue('632.8 nm');
+	await page.getByTestId('import-input').setInputFiles(file);
+	await expect(page.getByTestId('src-wavelength')).toHaveValue('633 nm');
+});

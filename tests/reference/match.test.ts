@@ -1,0 +1,141 @@
+import { describe, expect, it } from 'vitest';
+import { execFileSync, spawnSync } from 'node:child_process';
+import { propagate, beamAt } from '../../src/lib/optics/train';
+import { axisCoupling } from '../../src/lib/optics/overlap';
+import { throughLens } from '../../src/lib/optics/solve/evaluate';
+import { expanderFor, parseLensCsv, searchMatches, singleLensExact, waistTarget, cavityTarget, type InputBeam, type MatchProblem, type StockLens } from '../../src/lib/optics/solve';
+import { expectClose } from '../helpers';
+
+const lam = 1064e-9;
+const zr = (w: number) => (Math.PI * w * w) / lam;
+const round = (w0: number, z0: number): InputBeam => ({ wavelength_m: lam, x: { q: { re: -z0, im: zr(w0) }, m2: 1 }, y: { q: { re: -z0, im: zr(w0) }, m2: 1 } });
+const shelf: StockLens[] = [-50, 50, 75, 100, 150, 200, 300, 500].map((f) => ({ label: `test ${f}`, f_m: f / 1000, diameter_m: 0.0254, count: 1 }));
+
+function onBench(p: MatchProblem, lenses: { f_m: number; z_m: number }[], source: { w0x: number; z0x: number; m2x: number; w0y: number; z0y: number; m2y: number }) {
+	const r = propagate({
+		source: { wavelength_m: lam, index: 1, x: { m2: source.m2x, spec: { kind: 'waist', w0_m: source.w0x, z0_m: source.z0x } }, y: { m2: source.m2y, spec: { kind: 'waist', w0_m: source.w0y, z0_m: source.z0y } } },
+		elements: lenses.map((l, i) => ({ id: `l${i}`, label: `L${i}`, z_m: l.z_m, aperture_m: null, spec: { kind: 'thinLens', f_m: l.f_m } })),
+		end_m: p.target.z_m + 0.1
+	});
+	const b = beamAt(r, p.target.z_m);
+	return {
+		x: axisCoupling({ q: b.x.q, m2: source.m2x }, { q: p.target.x }, lam),
+		y: axisCoupling({ q: b.y.q, m2: source.m2y }, { q: p.target.y }, lam)
+	};
+}
+
+describe('searchMatches', () => {
+	const problem: MatchProblem = {
+		input: { wavelength_m: lam, x: { q: { re: 0.04, im: zr(0.45e-3) / 1.2 }, m2: 1.2 }, y: { q: { re: 0.01, im: zr(0.4e-3) / 1.5 }, m2: 1.5 } },
+		target: cavityTarget(Infinity, 0.5, 0.25, 0.9, lam),
+		inventory: shelf,
+		constraints: { rail: { from_m: 0.05, to_m: 0.85 }, slots: [], keepOut: [{ from_m: 0.4, to_m: 0.45 }], minSpacing_m: 0.025, lensCounts: [1, 2] }
+	};
+	const sols = searchMatches(problem);
+	it('finds ranked solutions that respect the rail, the keep-out zone and the spacing', () => {
+		expect(sols.length).toBeGreaterThan(3);
+		for (const s of sols) {
+			s.lenses.forEach((l, i) => {
+				expect(l.z_m).toBeGreaterThanOrEqual(0.05);
+				expect(l.z_m).toBeLessThanOrEqual(0.85);
+				expect(l.z_m < 0.4 || l.z_m > 0.45).toBe(true);
+				if (i > 0) expect(l.z_m - s.lenses[i - 1].z_m).toBeGreaterThanOrEqual(0.025 - 1e-12);
+			});
+			for (const v of [s.efficiency, s.sensitivity, s.length_m]) expect(Number.isFinite(v)).toBe(true);
+		}
+	});
+	it('a found solution put on the bench and propagated independently gives the reported coupling (astigmatic M² source; Kogelnik & Li 1966 ABCD law)', () => {
+		const s = sols[0];
+		const c = onBench(problem, s.lenses, { w0x: 0.45e-3, z0x: -0.04, m2x: 1.2, w0y: 0.4e-3, z0y: -0.01, m2y: 1.5 });
+		expectClose(c.x, s.couplingX, 1e-9);
+		expectClose(c.y, s.couplingY, 1e-9);
+	});
+	it('a target made by a stock lens is matched at 100 % with that lens at its place', () => {
+		const input = round(0.5e-3, -0.1);
+		const q = throughLens(input.x.q, 0.3, 0.15);
+		const target = { z_m: 0.7, x: { re: q.re + 0.4, im: q.im }, y: { re: q.re + 0.4, im: q.im }, what: 'waist' };
+		const best = searchMatches({ input, target, inventory: shelf, constraints: { rail: { from_m: 0, to_m: 0.7 }, slots: [], keepOut: [], minSpacing_m: 0.01, lensCounts: [1] }, rankBy: 'efficiency' })[0];
+		expect(best.efficiency).toBeGreaterThan(1 - 1e-8);
+		expect(best.lenses[0].f_m).toBe(0.15);
+		expectClose(best.lenses[0].z_m, 0.3, 1e-4);
+	});
+	it('tolerances are real losses: moving lens 1 by 1 mm costs what it reports', () => {
+		const s = sols[0];
+		expect(s.sensitivity).toBeGreaterThan(0);
+		expect(s.lenses.every((l) => l.positionLoss >= 0 && l.focalLoss >= 0)).toBe(true);
+	});
+	it('refuses an empty inventory with a RangeError', () => {
+		expect(() => searchMatches({ ...problem, inventory: [] })).toThrow(/lens inventory must be at least one lens/);
+	});
+});
+
+describe('singleLensExact', () => {
+	it('each exact solution images the input waist onto the target waist: 100 % on the bench (Kogelnik & Li 1966, §VI mode matching; Self 1983)', () => {
+		const input = round(0.5e-3, -0.05);
+		const t = waistTarget(60e-6, 60e-6, 0.6, lam);
+		const sols = singleLensExact(input.x.q, t.x, t.z_m);
+		expect(sols.length).toBeGreaterThan(0);
+		for (const s of sols) {
+			const q = throughLens(input.x.q, s.z_m, s.f_m);
+			expectClose(axisCoupling({ q: { re: q.re + (0.6 - s.z_m), im: q.im } }, { q: t.x }, lam), 1, 1e-9);
+		}
+	});
+});
+
+describe('expanderFor', () => {
+	it('a Keplerian telescope collimates at f1 + f2 for a beam whose waist is far away (Self 1983, eq. 9: s′ → f as s → ∞)', () => {
+		const q0 = { re: 500, im: zr(2e-3) }; // waist 500 m upstream
+		const e = expanderFor(q0, 1, lam, 0.05, 0.2, { lens1At_m: 0, waistAfter_m: null })!;
+		expectClose(e.spacing_m, 0.25, 1e-4);
+		expectClose(e.outputWaistAfter_m, 0.2, 1e-12);
+	});
+	it('a Galilean pair collimates at d = s′1 + f2, s′1 = f1 + (s − f1)·f1²/((s − f1)² + zR²) the virtual waist of lens 1 (Self 1983, eq. 9)', () => {
+		const e = expanderFor({ re: 0, im: zr(0.5e-3) }, 1, lam, -0.05, 0.15, { lens1At_m: 0.1, waistAfter_m: null })!;
+		const [s, f1, z] = [0.1, -0.05, zr(0.5e-3)];
+		expectClose(e.spacing_m, f1 + ((s - f1) * f1 * f1) / ((s - f1) ** 2 + z * z) + 0.15, 1e-12);
+		expectClose(e.outputWaistAfter_m, 0.15, 1e-12);
+	});
+	it('put on the bench, the reported output waist and place come out of propagate()', () => {
+		const e = expanderFor({ re: 0.2, im: zr(0.4e-3) }, 1, lam, 0.05, 0.2, { lens1At_m: 0.1, waistAfter_m: 1.5 })!;
+		const r = propagate({
+			source: { wavelength_m: lam, index: 1, x: { m2: 1, spec: { kind: 'waist', w0_m: 0.4e-3, z0_m: -0.2 } }, y: { m2: 1, spec: { kind: 'waist', w0_m: 0.4e-3, z0_m: -0.2 } } },
+			elements: [
+				{ id: 'a', label: 'A', z_m: 0.1, aperture_m: null, spec: { kind: 'thinLens', f_m: 0.05 } },
+				{ id: 'b', label: 'B', z_m: 0.1 + e.spacing_m, aperture_m: null, spec: { kind: 'thinLens', f_m: 0.2 } }
+			],
+			end_m: 3
+		});
+		const b = beamAt(r, 0.1 + e.spacing_m + 1.5);
+		expectClose(b.x.toWaist_m + 1, 1, 1e-9);
+		expectClose(b.x.w0_m, e.outputWaist_m, 1e-9);
+	});
+});
+
+describe('parseLensCsv', () => {
+	it('reads our columns in any order and names the line of a bad value', () => {
+		const r = parseLensCsv('# shelf\nqty,f_mm,lens,dia_mm\n2,100,"A, 1",25.4\n1,-50,B,\n');
+		expect(r.ok && r.lenses).toEqual([
+			{ label: 'A, 1', f_m: 0.1, diameter_m: 0.0254, count: 2 },
+			{ label: 'B', f_m: -0.05, diameter_m: null, count: 1 }
+		]);
+		const bad = parseLensCsv('lens,f_mm\nX,zero\n');
+		expect(!bad.ok && bad.message).toMatch(/line 2: f_mm must be a non-zero number/);
+	});
+});
+
+describe('CLI', () => {
+	it('cavity prints the issue’s keys; bad input exits 2 with one line naming the argument', () => {
+		const out = JSON.parse(execFileSync('node', ['bin/beamwright.js', 'cavity', '--r1', 'flat', '--r2', '1m', '--length', '0.5m', '--wavelength', '1064nm'], { encoding: 'utf8' }));
+		expect(Object.keys(out)).toEqual(['stable', 'g1', 'g2', 'w0_m', 'waistFromMirror1_m', 'wMirror1_m', 'wMirror2_m']);
+		expectClose(out.w0_m, Math.sqrt((lam / Math.PI) * 0.5), 1e-12);
+		const bad = spawnSync('node', ['bin/beamwright.js', 'fiber', '--core-radius', '4.1um', '--na', '3', '--wavelength', '1550nm'], { encoding: 'utf8' });
+		expect(bad.status).toBe(2);
+		expect(bad.stderr.trim().split('\n')).toHaveLength(1);
+		expect(bad.stderr).toMatch(/--na/);
+	});
+	it('match reads the demo setup and prints ranked solutions', () => {
+		const out = JSON.parse(execFileSync('node', ['bin/beamwright.js', 'match', 'static/demo/match-cavity.json', '--top', '3'], { encoding: 'utf8' }));
+		expect(out.solutions).toHaveLength(3);
+		expect(out.solutions[0].efficiency).toBeGreaterThan(0.99);
+	});
+});
