@@ -5,7 +5,7 @@
  * or a string to print as-is) plus a one-line `summary`.
  */
 import { CliInputError, parseArgs } from './args';
-import { loadUnitEngine } from '../lib/units/parse';
+import { loadUnitEngine, unitEngineReady, unitEngineWasNeeded } from '../lib/units/parse';
 
 type Command = { summary: string; usage: string; run: (argv: string[]) => Promise<unknown> };
 
@@ -42,13 +42,24 @@ export async function main(argv: string[]): Promise<number> {
 		process.stderr.write(`command: "${name}" is not a Beamwright command — one of ${Object.keys(registry).join(', ')}\n`);
 		return 2;
 	}
-	const [cmd] = await Promise.all([load(), loadUnitEngine()]);
+	const cmd = await load();
 	if (parseArgs(rest).options.has('help')) {
 		process.stdout.write(`${cmd.summary}\nUsage: ${cmd.usage}\n`);
 		return 0;
 	}
 	try {
-		const out = await cmd.run(rest);
+		// Most input ("0.5mm", "1064 nm") is read without mathjs, which takes a second to load; when some
+		// text needed it (compound units, inches…), load it and run the command again from the start.
+		let out: unknown;
+		try {
+			out = await cmd.run(rest);
+		} catch (e) {
+			if (unitEngineReady() || !unitEngineWasNeeded()) throw e;
+		}
+		if (!unitEngineReady() && unitEngineWasNeeded()) {
+			await loadUnitEngine();
+			out = await cmd.run(rest);
+		}
 		process.stdout.write(typeof out === 'string' ? out : JSON.stringify(out, null, 2) + '\n');
 		return 0;
 	} catch (e) {

@@ -14,7 +14,21 @@ import { defaultExposureDuration, evaluatePulseTrain, type ViewingCase } from '.
 import { diffuseHazardDistance_m, nohdFormula, opticalGain, requiredOpticalDensity, type ViewingOptic } from './hazard';
 import { evaluateLimit, type StandardChoice } from './limits/index';
 import type { FactorReport, LimitResult, Mechanism, StandardId } from './limits/types';
-import { gaussianNohd_m } from './propagated';
+import { beamPathExposure, gaussianNohd_m, type RadiusFunction, type SampledBeam } from './propagated';
+
+/**
+ * A beam known along its path (e.g. propagated by the bench through lenses and an expander) instead of
+ * a waist at the exit aperture. Distances are positions on the path's z axis.
+ */
+export interface BeamPathSpec {
+	beam: RadiusFunction | SampledBeam;
+	from_m: number;
+	to_m: number;
+	/** Waists and foci to examine closely, m. */
+	peaks_m?: readonly number[];
+	/** Where the far-field formula's exit aperture sits (the last element), m; `diameter_m` and `fullDivergence_rad` describe the beam there. */
+	exitAt_m: number;
+}
 
 export interface BeamAssessmentInput {
 	standard: StandardChoice;
@@ -35,6 +49,8 @@ export interface BeamAssessmentInput {
 	alpha_rad?: number;
 	optic?: ViewingOptic;
 	diffuse?: { reflectance: number; viewingAngle_rad: number };
+	/** The beam along its path; without it the waist is at the exit aperture (z = 0). */
+	path?: BeamPathSpec;
 }
 
 export type EmissionKind = 'continuous' | 'single pulse' | 'pulse train';
@@ -61,13 +77,15 @@ export interface BeamAssessment {
 	nohdFormula_m: number;
 	/** Aperture-averaged NOHD along the propagated beam. */
 	nohd_m: number;
+	/** True when the hazard continues past the end of the examined path (nohd_m is that end). */
+	nohdBeyondRange: boolean;
 	/** The larger of the two, and which it is. */
 	hazardDistance_m: number;
 	hazardDistanceFrom: 'beam' | 'formula';
 	exit: { peak_W_m2: number; averaged_W_m2: number };
 	odRequired: number;
 	odWhole: number;
-	/** Where the OD applies: the worst reachable point (the exit aperture), m. */
+	/** Where the OD applies: the worst point on the path (the exit aperture when no path is given), m. */
 	odAt_m: number;
 	aided?: { gain: number; nohdFormula_m: number; nohd_m: number; hazardDistance_m: number };
 	diffuse?: { reflectance: number; viewingAngle_rad: number; distance_m: number };
@@ -136,15 +154,31 @@ export function assessBeam(input: BeamAssessmentInput): BeamAssessment {
 	const D = lim.limitingAperture_m;
 	const w0 = diameter_m / 2;
 	const th = fullDivergence_rad / 2;
-	const nohdF = nohdFormula({ power_W, mpe_W_m2, diameter_m, fullDivergence_rad }).nohd_m;
-	const nohdB = gaussianNohd_m({ power_W, mpe_W_m2, aperture_m: D, waistRadius_m: w0, halfAngle_rad: th });
-	const averaged = apertureAveragedIrradiance_W_m2(power_W, D, w0);
-	const od = requiredOpticalDensity(averaged, mpe_W_m2);
+	const path = input.path;
+	const exitAt = path ? path.exitAt_m : 0;
+	const nohdF = exitAt + nohdFormula({ power_W, mpe_W_m2, diameter_m, fullDivergence_rad }).nohd_m;
+	let nohdB: number;
+	let beyond = false;
+	let worstAveraged: number;
+	let worstAt = 0;
+	if (path) {
+		const r = beamPathExposure({ beam: path.beam, power_W, mpe_W_m2, aperture_m: D, from_m: path.from_m, to_m: path.to_m, peaks_m: path.peaks_m });
+		nohdB = r.nohd_m;
+		beyond = r.beyondRange;
+		worstAveraged = r.worst.averaged_W_m2;
+		worstAt = r.worst.z_m;
+	} else {
+		nohdB = gaussianNohd_m({ power_W, mpe_W_m2, aperture_m: D, waistRadius_m: w0, halfAngle_rad: th });
+		worstAveraged = apertureAveragedIrradiance_W_m2(power_W, D, w0);
+	}
+	const od = requiredOpticalDensity(worstAveraged, mpe_W_m2);
 	let aided: BeamAssessment['aided'];
 	if (input.optic) {
 		const gain = opticalGain(input.optic, D);
-		const f = nohdFormula({ power_W, mpe_W_m2, diameter_m, fullDivergence_rad, gain }).nohd_m;
-		const b = gaussianNohd_m({ power_W, mpe_W_m2, aperture_m: D, waistRadius_m: w0, halfAngle_rad: th, optic: input.optic });
+		const f = exitAt + nohdFormula({ power_W, mpe_W_m2, diameter_m, fullDivergence_rad, gain }).nohd_m;
+		const b = path
+			? beamPathExposure({ beam: path.beam, power_W, mpe_W_m2, aperture_m: D, from_m: path.from_m, to_m: path.to_m, peaks_m: path.peaks_m, optic: input.optic }).nohd_m
+			: gaussianNohd_m({ power_W, mpe_W_m2, aperture_m: D, waistRadius_m: w0, halfAngle_rad: th, optic: input.optic });
 		aided = { gain, nohdFormula_m: f, nohd_m: b, hazardDistance_m: Math.max(f, b) };
 	}
 	const diffuse = input.diffuse ? { ...input.diffuse, distance_m: diffuseHazardDistance_m({ power_W, mpe_W_m2, ...input.diffuse }) } : undefined;
@@ -165,12 +199,13 @@ export function assessBeam(input: BeamAssessmentInput): BeamAssessment {
 		pulseRules,
 		nohdFormula_m: nohdF,
 		nohd_m: nohdB,
+		nohdBeyondRange: beyond,
 		hazardDistance_m: Math.max(nohdF, nohdB),
 		hazardDistanceFrom: nohdB >= nohdF ? 'beam' : 'formula',
-		exit: { peak_W_m2: peakIrradiance_W_m2(power_W, w0), averaged_W_m2: averaged },
+		exit: { peak_W_m2: peakIrradiance_W_m2(power_W, w0), averaged_W_m2: apertureAveragedIrradiance_W_m2(power_W, D, w0) },
 		odRequired: od.od,
 		odWhole: od.odWhole,
-		odAt_m: 0,
+		odAt_m: worstAt,
 		aided,
 		diffuse,
 		notes: lim.notes,

@@ -31,6 +31,12 @@ export function loadUnitEngine(): Promise<void> {
 	return loading;
 }
 
+let needed = false;
+/** True when some text could not be read without mathjs (a parse came back `pending`). */
+export function unitEngineWasNeeded(): boolean {
+	return needed;
+}
+
 /** True once mathjs has loaded. */
 export function unitEngineReady(): boolean {
 	return mathUnit !== null;
@@ -169,6 +175,7 @@ export function parseQuantity(text: string | undefined | null, spec: FieldSpec):
 	} else {
 		const unit = mathUnit;
 		if (!unit) {
+			needed = true;
 			void loadUnitEngine();
 			return { ok: false, pending: true, message: `${spec.label}: reading the unit of "${raw}"…` };
 		}

@@ -76,7 +76,12 @@ export interface UnphysicalFit extends FitCommon {
 
 export type CausticFit = PhysicalFit | UnphysicalFit;
 
-/** Fitted d(z) = √(a + b·z + c·z²) in m, or 0 where the quadratic dips below zero. */
+/**
+ * Fitted diameter d(z) = √(a + b·z + c·z²), m (z in m), or 0 where the quadratic dips below zero
+ * (possible only for a fit that is not physical).
+ * Example: a = 1e-6 m², b = 0, c = 1e-6, z = 1 m → d = 1.414 mm.
+ * Source: ISO 11146-1:2005, clause 9 (from memory).
+ */
 export function fittedDiameter_m(fit: FitCommon, z_m: number): number {
 	const v = fit.a_m2 + fit.b_m * z_m + fit.c * z_m * z_m;
 	return v > 0 ? Math.sqrt(v) : 0;

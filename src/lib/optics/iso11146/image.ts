@@ -14,7 +14,11 @@ export interface GreyImage {
 	maxValue?: number;
 }
 
-/** Check shape and values of an image; RangeError names the rule. */
+/**
+ * Check the shape of an image: whole width and height of at least 8 pixels and width·height values.
+ * Throws a RangeError naming the rule. Example: checkImage({ width: 4, height: 4, data }) throws
+ * "image must be at least 8 × 8 pixels — got 4 × 4". Source: our own input rule (pixels, no physics).
+ */
 export function checkImage(img: GreyImage): void {
 	const { width, height, data } = img;
 	if (!(Number.isInteger(width) && width >= 8 && Number.isInteger(height) && height >= 8)) {

@@ -15,7 +15,12 @@ export interface QuadraticFit {
 	dof: number;
 }
 
-/** Inverse of a symmetric 3 × 3 matrix (row-major); null when singular. */
+/**
+ * Inverse of a 3 × 3 matrix (row-major) by cofactors: M⁻¹ = adj(M)/det(M); null when det is
+ * negligible against the size of the entries (singular design). Unitless.
+ * Example: invert3([2, 0, 0, 0, 4, 0, 0, 0, 5]) → [0.5, 0, 0, 0, 0.25, 0, 0, 0, 0.2].
+ * Source: the adjugate formula of linear algebra (any handbook, e.g. Press et al., "Numerical Recipes" 2007, §2.0).
+ */
 export function invert3(m: number[]): number[] | null {
 	const [a, b, c, d, e, f, g, h, i] = m;
 	const A = e * i - f * h;

@@ -193,6 +193,7 @@ export const eu200625: Edition = {
 	notes: [
 		'Rows of Annex II Tables 2.2–2.4 are transcribed from memory; Tables 2.5 and 2.6 were read from the published text. Verify values against the Official Journal.',
 		'Rows printed for single wavelengths 303–314 nm are applied to the 1-nm band centred on each.',
-		'α = 1.5 mrad exactly is treated as a point source.'
+		'α = 1.5 mrad exactly is treated as a point source.',
+		'Skin, 400–1400 nm, below 1 ns: taken as 2·10¹¹ W/m² without C_A, the stricter reading of a value recalled from memory.'
 	]
 };

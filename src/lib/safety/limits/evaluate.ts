@@ -24,6 +24,8 @@ const factorInfo: Record<FactorKey, { name: string; iecName: string; unit: strin
 	C2: { name: 'C_2', iecName: 'C2', unit: 'J/m²', meaning: 'UV photochemical dose 10^(0.2(λ−295)) (302.5–315 nm)' }
 };
 
+const factorOrder = Object.keys(factorInfo) as FactorKey[];
+
 function fmtNm(nm: number): string {
 	return nm >= 1e5 ? `${+(nm / 1e6).toPrecision(4)} mm` : nm >= 1e4 ? `${+(nm / 1e3).toPrecision(4)} µm` : `${+nm.toPrecision(5)} nm`;
 }
@@ -54,15 +56,23 @@ function inBand(x: number, [lo, hi]: readonly [number, number], top: number): bo
 	return x >= lo && (x < hi || (hi === top && x <= hi));
 }
 
+const byTarget = new WeakMap<Edition, Record<Target, LimitRow[]>>();
+
 /** Rows of `edition` that cover the case (before evaluating their values). */
 export function matchingRows(edition: Edition, target: Target, lambda_nm: number, t_s: number, f: FactorValues): LimitRow[] {
-	return edition.rows.filter(
-		(r) =>
-			r.targets.includes(target) &&
-			inBand(lambda_nm, r.wavelength_nm, wavelengthRange_nm[1]) &&
-			inBand(t_s, r.duration_s, durationRange_s[1]) &&
-			(!r.when || r.when({ lambda_nm, t_s, f }))
-	);
+	let idx = byTarget.get(edition);
+	if (!idx) {
+		idx = { eye: edition.rows.filter((r) => r.targets.includes('eye')), skin: edition.rows.filter((r) => r.targets.includes('skin')) };
+		byTarget.set(edition, idx);
+	}
+	const out: LimitRow[] = [];
+	let ctx: { lambda_nm: number; t_s: number; f: FactorValues } | null = null;
+	for (const r of idx[target]) {
+		if (!inBand(lambda_nm, r.wavelength_nm, wavelengthRange_nm[1]) || !inBand(t_s, r.duration_s, durationRange_s[1])) continue;
+		if (r.when && !r.when((ctx ??= { lambda_nm, t_s, f }))) continue;
+		out.push(r);
+	}
+	return out;
 }
 
 function candidateOf(r: LimitRow, lambda_nm: number, t_s: number, f: FactorValues): LimitCandidate {
@@ -96,12 +106,17 @@ export function evaluateEdition(edition: Edition, input: LimitInput): LimitResul
 	const row = candidates.reduce((a, b) => (b.radiantExposure_J_m2 < a.radiantExposure_J_m2 ? b : a));
 	const used = new Set<FactorKey>();
 	for (const r of rows) for (const k of r.uses) used.add(k);
-	if (used.has('CE')) ['alpha_mrad', 'alphaMin_mrad', 'alphaMax_mrad'].forEach((k) => used.add(k as FactorKey));
-	const order = Object.keys(factorInfo) as FactorKey[];
-	const factors: FactorReport[] = order
-		.filter((k) => used.has(k))
-		.map((k) => ({ ...factorInfo[k], value: f[k] }));
-	const allFactors: FactorReport[] = order.filter((k) => Number.isFinite(f[k])).map((k) => ({ ...factorInfo[k], value: f[k] }));
+	if (used.has('CE')) for (const k of ['alpha_mrad', 'alphaMin_mrad', 'alphaMax_mrad'] as const) used.add(k);
+	const factors: FactorReport[] = [];
+	const allFactors: FactorReport[] = [];
+	for (const k of factorOrder) {
+		const v = f[k];
+		if (!Number.isFinite(v)) continue;
+		const i = factorInfo[k];
+		const rep: FactorReport = { name: i.name, iecName: i.iecName, value: v, unit: i.unit, meaning: i.meaning };
+		allFactors.push(rep);
+		if (used.has(k)) factors.push(rep);
+	}
 	return {
 		standardId: edition.id,
 		standard: edition.title,

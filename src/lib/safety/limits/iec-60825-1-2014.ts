@@ -182,6 +182,7 @@ export const iec608251_2014: Edition = {
 		'IEC 60825-1:2014 Annex A values are recalled from memory (ICNIRP 2013 values), not read from the standard. Verify against the standard.',
 		'C7 (C_C) is kept at 8 for 1200–1400 nm; the 2014 edition relaxes it above 1250 nm together with a corneal limit not recalled here. This is stricter.',
 		'For α > α_max the edition compares only the irradiance within α_max; here C6 = α_max/α_min is applied to the whole irradiance given, which is stricter.',
-		"The edition's further qualifications of C5 (caps on N, small sources) are not modelled: C5 = N^−0.25 as given, which is stricter."
+		"The edition's further qualifications of C5 (caps on N, small sources) are not modelled: C5 = N^−0.25 as given, which is stricter.",
+		'Skin, 400–1400 nm, below 1 ns: taken as 2·10¹¹ W/m² without C_A, the stricter reading of a value recalled from memory.'
 	]
 };
