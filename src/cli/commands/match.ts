@@ -2,7 +2,8 @@ import { readFile } from 'node:fs/promises';
 import { allowOnly, CliInputError, optChoice, parseArgs } from '../args';
 import { compileSource, type FieldError } from '../../lib/document/compile';
 import { parseSetupJson } from '../../lib/document/schema';
-import { compileMatch, searchMatches } from '../../lib/optics/solve';
+import { searchMatches } from '../../lib/optics/solve';
+import { compileMatch } from '../../lib/document/match';
 
 export const summary = 'Mode matching from the lens inventory of a setup document’s "match" section: ranked lens placements, efficiency, tolerances.';
 export const usage = 'npx beamwright match setup.json [--rank robust|efficiency|tolerance|length] [--top 10]';

@@ -46,8 +46,21 @@ export class SetupStore {
 		}
 	});
 
-	/** Field path → message, for showing each error beside its input. */
-	fieldErrors: Record<string, string> = $derived(this.outcome.ok ? {} : Object.fromEntries(this.outcome.errors.map((e) => [e.path, e.message])));
+	#lastErrors: Record<string, string> = {};
+	#lastErrorsKey = '';
+	/**
+	 * Field path → message, for showing each error beside its input. The same object is returned while
+	 * the messages are unchanged, so a drag does not re-render every field of the page.
+	 */
+	fieldErrors: Record<string, string> = $derived.by(() => {
+		const list = this.outcome.ok ? [] : this.outcome.errors;
+		const key = list.map((e) => e.path + '\u0000' + e.message).join('\u0001');
+		if (key !== this.#lastErrorsKey) {
+			this.#lastErrorsKey = key;
+			this.#lastErrors = Object.fromEntries(list.map((e) => [e.path, e.message]));
+		}
+		return this.#lastErrors;
+	});
 
 	constructor(storage: KeyValueStorage | null) {
 		this.#storage = storage;

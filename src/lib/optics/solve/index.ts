@@ -5,4 +5,3 @@ export * from './search';
 export * from './waistPlacement';
 export * from './expander';
 export * from './inventory';
-export * from './matchSection';

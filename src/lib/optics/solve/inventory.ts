@@ -30,27 +30,40 @@ function cells(line: string): string[] {
 	return out;
 }
 
-export function parseLensCsv(text: string): { ok: true; lenses: StockLens[] } | { ok: false; message: string } {
+/**
+ * Read a lens CSV. On failure `message` is the first problem (with a count of the others) and
+ * `messages` lists every bad line, each naming its line number and column.
+ */
+export function parseLensCsv(text: string): { ok: true; lenses: StockLens[] } | { ok: false; message: string; messages: string[] } {
+	const fail = (messages: string[]) => ({ ok: false as const, message: messages[0] + (messages.length > 1 ? ` (and ${messages.length - 1} more line${messages.length > 2 ? 's' : ''})` : ''), messages });
 	const lines = text.split(/\r?\n/).map((l, i) => ({ l, n: i + 1 })).filter(({ l }) => l.trim() !== '' && !l.trim().startsWith('#'));
-	if (lines.length === 0) return { ok: false, message: 'lens list: empty — expected a header "lens,f_mm,dia_mm,qty" and one line per lens' };
+	if (lines.length === 0) return fail(['lens list: empty — expected a header "lens,f_mm,dia_mm,qty" and one line per lens']);
 	const head = cells(lines[0].l).map((h) => h.toLowerCase());
 	const col = (name: string) => head.indexOf(name);
-	if (col('f_mm') < 0) return { ok: false, message: `lens list line ${lines[0].n}: the header needs a "f_mm" column (columns: lens, f_mm, dia_mm, qty)` };
+	if (col('f_mm') < 0) return fail([`lens list line ${lines[0].n}: the header needs a "f_mm" column (columns: lens, f_mm, dia_mm, qty)`]);
 	const lenses: StockLens[] = [];
+	const messages: string[] = [];
 	for (const { l, n } of lines.slice(1)) {
 		const c = cells(l);
 		const get = (name: string) => (col(name) >= 0 ? (c[col(name)] ?? '') : '');
-		const f = Number(get('f_mm'));
-		if (!Number.isFinite(f) || f === 0 || Math.abs(f) > 1e5) return { ok: false, message: `lens list line ${n}: f_mm must be a non-zero number of millimetres up to ±100000 — got "${get('f_mm')}"` };
+		const fText = get('f_mm');
+		const f = fText === '' ? NaN : Number(fText);
+		const lineErrors: string[] = [];
+		if (!Number.isFinite(f) || f === 0 || Math.abs(f) > 1e5) lineErrors.push(`f_mm must be a non-zero number of millimetres up to ±100000 — got "${fText}"`);
 		const dText = get('dia_mm');
 		const d = dText === '' ? null : Number(dText);
-		if (d !== null && !(Number.isFinite(d) && d > 0 && d <= 1000)) return { ok: false, message: `lens list line ${n}: dia_mm must be > 0 and ≤ 1000 mm or empty — got "${dText}"` };
+		if (d !== null && !(Number.isFinite(d) && d > 0 && d <= 1000)) lineErrors.push(`dia_mm must be > 0 and ≤ 1000 mm or empty — got "${dText}"`);
 		const qText = get('qty');
 		const q = qText === '' ? 1 : Number(qText);
-		if (!(Number.isInteger(q) && q >= 0 && q <= 1000)) return { ok: false, message: `lens list line ${n}: qty must be a whole number from 0 to 1000 — got "${qText}"` };
+		if (!(Number.isInteger(q) && q >= 0 && q <= 1000)) lineErrors.push(`qty must be a whole number from 0 to 1000 — got "${qText}"`);
+		if (lineErrors.length) {
+			messages.push(`lens list line ${n}: ${lineErrors.join('; ')}`);
+			continue;
+		}
 		lenses.push({ label: get('lens') || `f ${f} mm`, f_m: f / 1000, diameter_m: d === null ? null : d / 1000, count: q });
 	}
-	if (lenses.length === 0) return { ok: false, message: 'lens list: no lenses below the header' };
+	if (messages.length) return fail(messages);
+	if (lenses.length === 0) return fail(['lens list: no lenses below the header']);
 	return { ok: true, lenses };
 }
 

@@ -1,0 +1,231 @@
+/**
+ * State of the Measure workspace. Inputs live in the setup document's `measure` section (text as the
+ * user typed it, so autosave and undo cover them); everything else is derived by calling the engine.
+ * Images are not kept in the document: they stay in this tab, and their widths enter the table as rows.
+ */
+import * as v from 'valibot';
+import { parseQuantity } from '$lib/units/parse';
+import { formatNumber, formatSI } from '$lib/units/format';
+import { parseWidthTable, type WidthTable } from '$lib/io/widthTable';
+import {
+	fitWidths,
+	sampleCaustic,
+	toBenchSource,
+	type AxisName,
+	type MeasuredSource,
+	type PhysicalFit,
+	type WidthsResult
+} from '$lib/optics/iso11146/index';
+import type { SetupStore } from '$lib/document/store.svelte';
+
+/** Length units offered for z and diameters, metres per unit. */
+export const lengthUnits = [
+	{ key: 'um', label: 'µm', m: 1e-6 },
+	{ key: 'mm', label: 'mm', m: 1e-3 },
+	{ key: 'cm', label: 'cm', m: 1e-2 },
+	{ key: 'm', label: 'm', m: 1 },
+	{ key: 'in', label: 'inch', m: 0.0254 }
+] as const;
+type UnitKey = (typeof lengthUnits)[number]['key'];
+const unitKeys = lengthUnits.map((u) => u.key) as [UnitKey, ...UnitKey[]];
+
+export const MeasureSchema = v.object({
+	widths: v.string(),
+	zUnit: v.picklist(unitKeys),
+	dUnit: v.picklist(unitKeys),
+	wavelength: v.string(),
+	weighting: v.picklist(['relative', 'plain']),
+	/** Where the measurement's z = 0 lies on the bench axis. */
+	zOffset: v.string(),
+	pixel: v.string()
+});
+export type MeasureDoc = v.InferOutput<typeof MeasureSchema>;
+
+export function defaultMeasure(): MeasureDoc {
+	return { widths: '', zUnit: 'mm', dUnit: 'um', wavelength: '1064 nm', weighting: 'relative', zOffset: '0 mm', pixel: '5.5 um' };
+}
+
+export const fields = {
+	wavelength: { label: 'Wavelength (vacuum)', kind: 'length', min_si: 100e-9, max_si: 1e-3 },
+	zOffset: { label: 'Measurement z = 0 on the bench axis', kind: 'length', min_si: -1e3, max_si: 1e3 },
+	pixel: { label: 'Pixel pitch', kind: 'length', above_si: 0, max_si: 1e-3 },
+	imageZ: { label: 'z of this image', kind: 'length', min_si: -1e3, max_si: 1e3 }
+} as const;
+
+export const unitMetres = (key: UnitKey) => lengthUnits.find((u) => u.key === key)!.m;
+
+type Outcome<T> = { ok: true; value: T } | { ok: false; message: string } | null;
+
+export interface AxisPlot {
+	name: AxisName;
+	/** Measured planes. */
+	z_m: number[];
+	d_m: number[];
+	residual_m: number[];
+	/** Fitted caustic samples (empty when the fit is not physical). */
+	fitZ_m: Float64Array;
+	fitD_m: Float64Array;
+	fit: PhysicalFit | null;
+}
+
+export class MeasureState {
+	#store: SetupStore;
+
+	constructor(store: SetupStore) {
+		this.#store = store;
+	}
+
+	/** The section as stored, or the defaults when absent or unreadable. */
+	read = $derived.by((): { doc: MeasureDoc; problem: string | null } => {
+		const raw = this.#store.doc.measure;
+		if (raw === undefined) return { doc: defaultMeasure(), problem: null };
+		const r = v.safeParse(MeasureSchema, { ...defaultMeasure(), ...raw });
+		if (r.success) return { doc: r.output, problem: null };
+		return { doc: defaultMeasure(), problem: `The saved Measure inputs could not be read (${r.issues[0].message}); defaults are shown.` };
+	});
+	get doc(): MeasureDoc {
+		return this.read.doc;
+	}
+
+	/** Change one input; typing in one field is one undo step, a one-off action (`oneStep`) its own. */
+	set<K extends keyof MeasureDoc>(key: K, value: MeasureDoc[K], oneStep = false): void {
+		const next = { ...this.doc, [key]: value };
+		this.#store.update(
+			(d) => {
+				d.measure = next;
+			},
+			oneStep ? undefined : `measure.${key}`
+		);
+	}
+
+	wavelength = $derived.by(() => {
+		void this.#store.unitsVersion;
+		return parseQuantity(this.doc.wavelength, fields.wavelength);
+	});
+	zOffset = $derived.by(() => {
+		void this.#store.unitsVersion;
+		return parseQuantity(this.doc.zOffset, fields.zOffset);
+	});
+	pixel = $derived.by(() => {
+		void this.#store.unitsVersion;
+		return parseQuantity(this.doc.pixel, fields.pixel);
+	});
+
+	table: Outcome<WidthTable> = $derived.by(() => {
+		void this.#store.unitsVersion;
+		const text = this.doc.widths;
+		if (text.trim() === '') return null;
+		try {
+			return {
+				ok: true,
+				value: parseWidthTable(text, {
+					zUnit_m: unitMetres(this.doc.zUnit),
+					dUnit_m: unitMetres(this.doc.dUnit),
+					resolveUnit: (u) => {
+						const r = parseQuantity(`1 ${u}`, { label: 'unit', kind: 'length', above_si: 0 });
+						return r.ok ? r.value_si : null;
+					}
+				})
+			};
+		} catch (e) {
+			return { ok: false, message: (e as Error).message };
+		}
+	});
+
+	result: Outcome<WidthsResult> = $derived.by(() => {
+		const t = this.table;
+		if (!t || !t.ok) return null;
+		const distinct = new Set(t.value.rows.map((r) => r.z_m)).size;
+		if (distinct < 3) return { ok: false, message: `A fit needs at least 3 planes at different z — ${distinct} usable so far.` };
+		const w = this.wavelength;
+		try {
+			return {
+				ok: true,
+				value: fitWidths(t.value.rows, t.value.columns, { wavelength_m: w.ok ? w.value_si : undefined, weighting: this.doc.weighting })
+			};
+		} catch (e) {
+			return { ok: false, message: (e as Error).message };
+		}
+	});
+
+	/** Per axis: measured points, residuals and the fitted caustic, ready for the plot. */
+	plot: AxisPlot[] = $derived.by(() => {
+		const r = this.result;
+		if (!r || !r.ok) return [];
+		const out: AxisPlot[] = [];
+		for (const [name, axis] of Object.entries(r.value.axes) as Array<[AxisName, NonNullable<WidthsResult['axes'][AxisName]>]>) {
+			const f = axis.fit;
+			const rows = this.table && this.table.ok ? this.table.value.rows : [];
+			const k = name === 'y' ? 1 : 0;
+			const z = rows.map((p) => p.z_m);
+			const d = rows.map((p) => p.d_m[k]);
+			if (!f.physical) {
+				out.push({ name, z_m: z, d_m: d, residual_m: [], fitZ_m: new Float64Array(0), fitD_m: new Float64Array(0), fit: null });
+				continue;
+			}
+			const lo = Math.min(...z, f.z0_m);
+			const hi = Math.max(...z, f.z0_m);
+			const pad = 0.04 * (hi - lo || 1e-3);
+			const s = sampleCaustic(f, lo - pad, hi + pad, 240);
+			out.push({ name, z_m: z, d_m: d, residual_m: f.residuals.map((q) => q.residual_m), fitZ_m: s.z_m, fitD_m: s.d_m, fit: f });
+		}
+		return out;
+	});
+
+	source: Outcome<MeasuredSource> = $derived.by(() => {
+		const r = this.result;
+		if (!r || !r.ok) return null;
+		const w = this.wavelength;
+		if (!w.ok) return { ok: false, message: w.message };
+		const off = this.zOffset;
+		if (!off.ok) return { ok: false, message: off.message };
+		try {
+			return { ok: true, value: toBenchSource(r.value, w.value_si, { zOffset_m: off.value_si }) };
+		} catch (e) {
+			return { ok: false, message: (e as Error).message };
+		}
+	});
+
+	/** Make the fitted beam the bench's source (text fields keep units). Returns an error message or null. */
+	sendToBench(): string | null {
+		const s = this.source;
+		if (!s) return 'Enter measured widths first.';
+		if (!s.ok) return s.message;
+		const src = s.value.source;
+		const text = (m: number) => formatSI(m, 'm', 5);
+		const axis = (a: typeof src.x) => ({
+			m2: formatNumber(a.m2, 4),
+			waist: a.spec.kind === 'waist' ? text(a.spec.w0_m) : '',
+			waistAt: a.spec.kind === 'waist' ? text(a.spec.z0_m) : ''
+		});
+		const x = axis(src.x);
+		const y = axis(src.y);
+		const columns = this.result && this.result.ok ? this.result.value.columns : 'd';
+		this.#store.update((d) => {
+			d.source.label = 'Measured beam (Measure workspace)';
+			d.source.wavelength = this.doc.wavelength;
+			d.source.index = '1';
+			d.source.astigmatic = columns === 'xy';
+			d.source.x = { ...d.source.x, kind: 'waist', ...x };
+			d.source.y = { ...d.source.y, kind: 'waist', ...y };
+		});
+		return null;
+	}
+
+	/**
+	 * Append image widths to the table as rows z, dx, dy in the table's units; starts a table with a
+	 * header when it is empty. Returns an error message or null.
+	 */
+	addPlanes(planes: Array<{ z_m: number; dx_m: number; dy_m: number }>): string | null {
+		if (planes.length === 0) return 'No analysed image with a valid z to add.';
+		const t = this.table;
+		if (t && t.ok && t.value.columns === 'd') return 'The table has one diameter column; image widths need the columns z, dx, dy. Clear the table or change its header.';
+		const zu = t && t.ok ? t.value.zUnit_m : unitMetres(this.doc.zUnit);
+		const du = t && t.ok ? t.value.dUnit_m : unitMetres(this.doc.dUnit);
+		const num = (x: number) => Number(x.toPrecision(6)).toString();
+		const lines = planes.map((p) => `${num(p.z_m / zu)},${num(p.dx_m / du)},${num(p.dy_m / du)}`);
+		const base = this.doc.widths.trimEnd();
+		this.set('widths', (base === '' ? 'z,dx,dy\n' : base + '\n') + lines.join('\n') + '\n', true);
+		return null;
+	}
+}
