@@ -139,3 +139,65 @@ describe('CLI', () => {
 		expect(out.solutions[0].efficiency).toBeGreaterThan(0.99);
 	});
 });
+
+describe('document match section (src/lib/document/match.ts)', () => {
+	it('the example section compiles; each bad field gets a message naming it and its range', async () => {
+		const { compileMatchDoc, defaultMatchSection } = await import('../../src/lib/document/match');
+		const { emptySetup } = await import('../../src/lib/document/demo');
+		const doc = { ...emptySetup(), match: defaultMatchSection() };
+		const ok = compileMatchDoc(doc);
+		expect(ok.errors).toEqual([]);
+		expect(ok.problem?.target.what).toBe('cavity');
+		expect(ok.cavity?.stable).toBe(true);
+		// (A+D)/2 of the round trip equals 2·g1·g2 − 1 for a two-mirror cavity (Kogelnik & Li 1966, §V).
+		expectClose(ok.cavity!.halfTrace, 2 * ok.cavity!.g1g2 - 1, 1e-12);
+		const bad = defaultMatchSection();
+		bad.rail.to = '';
+		bad.minSpacing = '-3 mm';
+		bad.inventory[0].focal = '0 mm';
+		bad.inventory[1].count = 'two';
+		bad.target.r2 = '5 kg';
+		const c = compileMatchDoc({ ...doc, match: bad });
+		expect(c.problem).toBeNull();
+		expect(c.fieldErrors['rail.to']).toMatch(/Rail end is empty/);
+		expect(c.fieldErrors['minSpacing']).toMatch(/Minimum spacing must be ≥ 0 m/);
+		expect(c.fieldErrors['inventory.0.focal']).toMatch(/focal length must be at least 1 mm/);
+		expect(c.fieldErrors['inventory.1.count']).toMatch(/count must be a whole number/);
+		expect(c.fieldErrors['target.r2']).toMatch(/wrong unit/);
+	});
+	it('an unstable cavity is reported as such, with g1·g2 and (A+D)/2', async () => {
+		const { compileMatchDoc, defaultMatchSection } = await import('../../src/lib/document/match');
+		const { emptySetup } = await import('../../src/lib/document/demo');
+		const m = defaultMatchSection();
+		m.target.length = '600 mm'; // flat + R = 500 mm: g1·g2 = 1 − 600/500 < 0
+		const c = compileMatchDoc({ ...emptySetup(), match: m });
+		expect(c.cavity?.stable).toBe(false);
+		expect(c.fieldErrors['target.cavity']).toMatch(/no stable mode.*g1·g2 = −?-?0\.2/);
+	});
+	it('the bench beam at the rail start as input equals the source when nothing is upstream', async () => {
+		const { benchInput, compileMatchDoc, defaultMatchSection } = await import('../../src/lib/document/match');
+		const { emptySetup, makeElement } = await import('../../src/lib/document/demo');
+		const doc = { ...emptySetup(), match: { ...defaultMatchSection(), input: { from: 'bench' as const } } };
+		const src = compileMatchDoc({ ...doc, match: defaultMatchSection() }).problem!.input;
+		const b = benchInput(doc, 0.05);
+		expectClose(b.x.q.re, src.x.q.re, 1e-12);
+		expectClose(b.x.q.im, src.x.q.im, 1e-12);
+		// A lens from an earlier apply is left out; a bench lens upstream changes the input.
+		doc.elements = [makeElement('thinLens', 'match-1', 'ML1', '20 mm', { f: '100 mm' })];
+		expectClose(benchInput(doc, 0.05).x.q.re, src.x.q.re, 1e-12);
+		doc.elements = [makeElement('thinLens', 'e1', 'L1', '20 mm', { f: '100 mm' })];
+		const moved = benchInput(doc, 0.05);
+		const after = throughLens(src.x.q, 0.02, 0.1);
+		expectClose(moved.x.q.re + 0.02, after.re, 1e-9);
+		expectClose(moved.x.q.im, after.im, 1e-9);
+	});
+	it('a lens CSV with several bad lines names every one', () => {
+		const r = parseLensCsv('lens,f_mm,dia_mm,qty\nA,100,25.4,1\nB,,25.4,1\nC,50,-1,x\n');
+		expect(r.ok).toBe(false);
+		if (!r.ok) {
+			expect(r.messages).toHaveLength(2);
+			expect(r.messages[0]).toMatch(/line 3: f_mm/);
+			expect(r.messages[1]).toMatch(/line 4: dia_mm .*; qty/);
+		}
+	});
+});

@@ -19,6 +19,7 @@ import {
 	cautionLines,
 	defaultExposureDuration,
 	diffuseHazardDistance_m,
+	exposureAtDistance,
 	gaussianNohd_m,
 	gaussianRadius,
 	nohdFormula,
@@ -84,6 +85,24 @@ describe('aided viewing and diffuse reflection (formula forms)', () => {
 		expectClose(diffuseHazardDistance_m({ power_W: P, mpe_W_m2: E_MPE, reflectance: 0.9, viewingAngle_rad: 0 }), Math.sqrt((0.9 * P) / (Math.PI * E_MPE)), 1e-12);
 		expectClose(diffuseHazardDistance_m({ power_W: P, mpe_W_m2: E_MPE, reflectance: 0.9, viewingAngle_rad: Math.PI / 3 }), Math.sqrt((0.45 * P) / (Math.PI * E_MPE)), 1e-12);
 		expect(() => diffuseHazardDistance_m({ power_W: P, mpe_W_m2: E_MPE, reflectance: 1.2, viewingAngle_rad: 0 })).toThrow(/reflectance must be within 0–1 — got 1.2/);
+	});
+});
+
+describe('exposureAtDistance — peak and aperture-averaged (Siegman 1986 §17.1)', () => {
+	it('w(z) = √((d/2)² + (Θz/2)²), peak 2P/(πw²), averaged P(1 − exp(−2(D/2)²/w²))/(π(D/2)²)', () => {
+		const z = 100;
+		const w = Math.sqrt((d / 2) ** 2 + ((Th * z) / 2) ** 2);
+		const r = exposureAtDistance({ amount: P, diameter_m: d, fullDivergence_rad: Th, distance_m: z, aperture_m: 7e-3 });
+		expectClose(r.w_m, w, 1e-12);
+		expectClose(r.peak, (2 * P) / (Math.PI * w * w), 1e-12);
+		expectClose(r.averaged, (P * (1 - Math.exp((-2 * 3.5e-3 ** 2) / w ** 2))) / (Math.PI * 3.5e-3 ** 2), 1e-12);
+		// In the far field the averaged value tends to the peak (beam ≫ aperture).
+		expect(r.averaged / r.peak).toBeGreaterThan(0.99);
+	});
+	it('near the exit a beam smaller than the aperture averages far below its peak', () => {
+		const r = exposureAtDistance({ amount: P, diameter_m: 1e-3, fullDivergence_rad: 1e-3, distance_m: 0, aperture_m: 7e-3 });
+		expectClose(r.averaged, P / (Math.PI * 3.5e-3 ** 2), 1e-12);
+		expect(r.peak / r.averaged).toBeGreaterThan(20);
 	});
 });
 
@@ -200,5 +219,34 @@ describe('default exposure durations (common practice; IEC TR 60825-14 §5.1 for
 	it('is overridable: a given duration wins', () => {
 		const a = assessBeam({ standard: 'eu-2006-25', wavelength_m: 532e-9, power_W: 1e-3, diameter_m: 1e-3, fullDivergence_rad: 1e-3, duration_s: 5 });
 		expect(a.exposure).toMatchObject({ duration_s: 5, isDefault: false });
+	});
+});
+
+describe('assessBeam along a given path (a focused beam)', () => {
+	it('takes the NOHD past the focus and the OD at the focus, the formula from the last element', () => {
+		const lambda = 1064e-9;
+		const wf = 50e-6;
+		const zf = 2;
+		const zR = (Math.PI * wf * wf) / lambda;
+		const w = (z: number) => wf * Math.sqrt(1 + ((z - zf) / zR) ** 2);
+		const a = assessBeam({
+			standard: 'eu-2006-25',
+			wavelength_m: lambda,
+			power_W: 0.01,
+			diameter_m: 2 * w(1),
+			fullDivergence_rad: (2 * wf) / zR,
+			duration_s: 10,
+			path: { beam: w, from_m: 0, to_m: 10, peaks_m: [zf], exitAt_m: 1 }
+		});
+		// E_MPE = 10·C_A W/m² at 1064 nm (Directive Table 2.3, from memory; C_A = 5 from Table 2.5, read)
+		expectClose(a.mpe_W_m2, 50, 1e-12);
+		const D = 7e-3;
+		const q = (50 * Math.PI * (D / 2) ** 2) / 0.01;
+		const wStar = Math.sqrt((-2 * (D / 2) ** 2) / Math.log(1 - q));
+		expectClose(a.nohd_m, zf + zR * Math.sqrt((wStar / wf) ** 2 - 1), 1e-7);
+		// Worst point: the whole beam inside the aperture at the focus.
+		expectClose(a.odRequired, Math.log10((0.01 * (1 - Math.exp((-2 * (D / 2) ** 2) / wf ** 2))) / (Math.PI * (D / 2) ** 2) / 50), 1e-9);
+		expect(w(a.odAt_m)).toBeLessThan(D / 6); // on the plateau around the focus, beam well inside the aperture
+		expect(a.nohdFormula_m).toBeGreaterThanOrEqual(1);
 	});
 });

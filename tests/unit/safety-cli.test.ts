@@ -81,3 +81,16 @@ describe('beamwright hazard', () => {
 		expect(c.err).toMatch(/^--divergence/);
 	});
 });
+
+describe('beamwright hazard, pulsed', () => {
+	it('a pulse train uses the pulse rules; a single pulse refuses an exposure duration', () => {
+		const j = JSON.parse(cli('hazard', '--standard', 'iec-60825-1-2014', '--wavelength', '1064nm', '--pulse-energy', '1mJ', '--pulse-width', '10ns', '--repetition-rate', '10Hz', '--diameter', '2mm', '--divergence', '1mrad').out);
+		expect(j.emission).toBe('pulse train');
+		expect(j.rule).toBe('repetitive pulse (C_P)');
+		// IEC 60825-1:2014 (from memory): 2·10⁻² J/m² at 10 ns, 1050–1400 nm; C5 = N^−0.25, N = 10 Hz × 10 s
+		expectClose(j.mpe_J_m2, 2e-2 * 100 ** -0.25, 1e-12);
+		const r = cli('hazard', '--wavelength', '1064nm', '--pulse-energy', '1mJ', '--pulse-width', '10ns', '--diameter', '2mm', '--divergence', '1mrad', '--duration', '1s');
+		expect(r.code).toBe(2);
+		expect(r.err).toMatch(/^--duration: a single pulse is exposed for its width/);
+	});
+});

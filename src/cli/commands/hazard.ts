@@ -6,7 +6,7 @@ import { readFile } from 'node:fs/promises';
 import { allowOnly, CliInputError, optChoice, optQuantity, optString, parseArgs, requireQuantity } from '../args';
 import { assessBeam } from '../../lib/safety/assess';
 import { viewingCases } from '../../lib/safety/exposure';
-import { assessInventory, inventoryToCsv } from '../../lib/safety/inventory';
+import { assessInventory, inventoryColumns, inventoryToCsv } from '../../lib/safety/inventory';
 import { standardChoices } from '../../lib/safety/limits/index';
 import { durationSpec, wavelengthSpec } from './mpe';
 
@@ -15,7 +15,8 @@ export const usage = [
 	'npx beamwright hazard --standard eu-2006-25|iec-60825-1-2014|stricter --wavelength 514.5nm --power 5W --diameter 2.83mm --divergence 1.41mrad [--duration 0.25s | --viewing accidental|worst-case|deliberate]',
 	'      [--pulse-energy 1mJ --pulse-width 10ns [--repetition-rate 10Hz]] [--source-angle 1.5mrad]',
 	'      [--optic-aperture 50mm --optic-magnification 7 --optic-transmission 0.9] [--reflectance 0.9 [--viewing-angle 0deg]]',
-	'   or: npx beamwright hazard --inventory lasers.csv [--standard …] [--format json|csv]'
+	'   or: npx beamwright hazard --inventory lasers.csv [--standard …] [--format json|csv]',
+	`      CSV columns (header line, any order): ${inventoryColumns.map((c) => (c.required ? c.name + '*' : c.name)).join(', ')} (* needed); a bare number takes the column's default unit (nm, W, J, s, Hz, mm, mrad)`
 ].join('\n');
 
 const single = ['standard', 'wavelength', 'power', 'pulse-energy', 'pulse-width', 'repetition-rate', 'diameter', 'divergence', 'duration', 'viewing', 'source-angle', 'optic-aperture', 'optic-magnification', 'optic-transmission', 'reflectance', 'viewing-angle'];
@@ -87,6 +88,8 @@ export async function run(argv: string[]) {
 	const diameter_m = requireQuantity(args, 'diameter', { kind: 'length', above_si: 0, max_si: 10 }, '2.83mm');
 	const fullDivergence_rad = requireQuantity(args, 'divergence', { kind: 'angle', above_si: 0, max_si: Math.PI }, '1.41mrad');
 	const duration_s = optQuantity(args, 'duration', durationSpec);
+	if (duration_s !== undefined && pulseEnergy_J !== undefined && repetitionRate_Hz === undefined)
+		throw new CliInputError('--duration: a single pulse is exposed for its width — leave --duration out, or give --repetition-rate for a pulse train');
 	if (duration_s !== undefined && args.options.has('viewing')) throw new CliInputError('--viewing: sets the default duration — give it or --duration, not both');
 	const viewing = optChoice(args, 'viewing', viewingCases, 'accidental');
 	const alpha_rad = optQuantity(args, 'source-angle', { kind: 'angle', min_si: 0, max_si: Math.PI });

@@ -140,7 +140,11 @@ export interface CompiledMatch {
 	/** Where the input beam came from, in words, and its waist per axis. */
 	input: { from: 'source' | 'bench'; w0x_m: number; z0x_m: number; w0y_m: number; z0y_m: number; m2x: number; m2y: number } | null;
 	/** Bench elements the search does not see (besides lenses from an earlier apply), by label and position. */
-	ignored: { label: string; z_m: number }[];
+	ignored: { id: string; label: string; z_m: number }[];
+	/** The stock lenses when every inventory field is valid (for the expander read-out), else null. */
+	inventory: StockLens[] | null;
+	/** The input beam (q̂ referred to z = 0, air), when it could be computed. */
+	inputBeam: InputBeam | null;
 	/** The rail range, when valid. */
 	rail: Interval | null;
 }
@@ -165,7 +169,7 @@ function radiusText(t: string, label: string, path: string, err: (p: string, m: 
  * when the section takes the bench's beam at the rail start as its input.
  */
 export function compileMatchSection(raw: unknown, source: SourceSpec, doc?: SetupDoc): CompiledMatch {
-	const out: CompiledMatch = { problem: null, fieldErrors: {}, errors: [], cavity: null, fiber: null, target: null, input: null, ignored: [], rail: null };
+	const out: CompiledMatch = { problem: null, fieldErrors: {}, errors: [], cavity: null, fiber: null, target: null, input: null, ignored: [], rail: null, inventory: null, inputBeam: null };
 	const err = (path: string, message: string) => {
 		if (!(path in out.fieldErrors)) out.fieldErrors[path] = message;
 		out.errors.push(message);
@@ -260,6 +264,7 @@ export function compileMatchSection(raw: unknown, source: SourceSpec, doc?: Setu
 		return { label: l.label.trim() || `lens ${i + 1}`, f_m: f, diameter_m: d, count: c };
 	});
 	if (m.inventory.length > 0 && inventory.every((l) => !(l.count >= 1))) err('inventory', 'Lens inventory has no lens with a count of 1 or more');
+	if (!Object.keys(out.fieldErrors).some((k) => k.startsWith('inventory'))) out.inventory = inventory;
 
 	// Constraints.
 	const slots = m.slots.map((s, i) => interval(s, `slots.${i}`, `Lens ${i + 1} range`, true));
@@ -284,6 +289,7 @@ export function compileMatchSection(raw: unknown, source: SourceSpec, doc?: Setu
 			err('input.from', `The bench beam cannot be computed: ${(e as Error).message}`);
 		}
 	} else err('input.from', 'The bench source needs fixing first (wavelength) — see the Bench page');
+	out.inputBeam = input;
 	if (input) {
 		const ax = (a: { q: { re: number; im: number }; m2: number }) => ({ w0: Math.sqrt((a.m2 * lam * a.q.im) / Math.PI), z0: -a.q.re });
 		const x = ax(input.x);
@@ -294,7 +300,7 @@ export function compileMatchSection(raw: unknown, source: SourceSpec, doc?: Setu
 		const first = m.input.from === 'bench' && railOk ? railFrom : -Infinity;
 		const end = Number.isFinite(at) ? at : Infinity;
 		const compiled = compileSetup(doc);
-		if (compiled.ok) out.ignored = compiled.input.elements.filter((e) => !e.id.startsWith(MATCH_ID_PREFIX) && e.z_m >= first && e.z_m < end).map((e) => ({ label: e.label, z_m: e.z_m }));
+		if (compiled.ok) out.ignored = compiled.input.elements.filter((e) => !e.id.startsWith(MATCH_ID_PREFIX) && e.z_m >= first && e.z_m < end).map((e) => ({ id: e.id, label: e.label, z_m: e.z_m }));
 	}
 
 	if (target && lamOk) {
@@ -341,7 +347,7 @@ export function compileMatchDoc(doc: SetupDoc): CompiledMatch {
 	const errs: FieldError[] = [];
 	const source = compileSource(doc, errs);
 	if (errs.length) {
-		const out: CompiledMatch = { problem: null, fieldErrors: { 'input.from': `The bench source needs fixing first: ${errs[0].message}` }, errors: [], cavity: null, fiber: null, target: null, input: null, ignored: [], rail: null };
+		const out: CompiledMatch = { problem: null, fieldErrors: { 'input.from': `The bench source needs fixing first: ${errs[0].message}` }, errors: [], cavity: null, fiber: null, target: null, input: null, ignored: [], rail: null, inventory: null, inputBeam: null };
 		out.errors.push(out.fieldErrors['input.from']);
 		return out;
 	}

@@ -87,6 +87,8 @@ export interface BeamAssessment {
 	odWhole: number;
 	/** Where the OD applies: the worst point on the path (the exit aperture when no path is given), m. */
 	odAt_m: number;
+	/** Aperture-averaged irradiance at that point, W/m². */
+	odExposure_W_m2: number;
 	aided?: { gain: number; nohdFormula_m: number; nohd_m: number; hazardDistance_m: number };
 	diffuse?: { reflectance: number; viewingAngle_rad: number; distance_m: number };
 	notes: readonly string[];
@@ -206,6 +208,7 @@ export function assessBeam(input: BeamAssessmentInput): BeamAssessment {
 		odRequired: od.od,
 		odWhole: od.odWhole,
 		odAt_m: worstAt,
+		odExposure_W_m2: worstAveraged,
 		aided,
 		diffuse,
 		notes: lim.notes,

@@ -8,6 +8,7 @@
  * 1/e full divergence φ; our inputs are 1/e² (DESIGN.md), so a = d/√2 and φ = Θ/√2. With these,
  * 4P/(π·a²) is the peak (on-axis) irradiance of a Gaussian beam.
  */
+import { apertureAveragedIrradiance_W_m2, peakIrradiance_W_m2 } from './aperture';
 
 export interface FormulaNohdInput {
 	power_W: number;
@@ -110,4 +111,30 @@ export function requiredOpticalDensity(exposure: number, limit: number): Optical
 	if (!(Number.isFinite(exposure) && exposure >= 0)) throw new RangeError(`exposure must be a finite number ≥ 0 — got ${exposure}`);
 	const od = exposure <= limit ? 0 : Math.log10(exposure / limit);
 	return { od, odWhole: Math.max(0, Math.ceil(od - 1e-9)) };
+}
+
+export interface AtDistance {
+	/** On-axis (peak) value: 2·Q/(π·w²). */
+	peak: number;
+	/** Averaged over the limiting aperture: Q·(1 − exp(−2(D/2)²/w²))/(π(D/2)²). */
+	averaged: number;
+	/** 1/e² beam radius there, m. */
+	w_m: number;
+}
+
+/**
+ * Exposure at a distance z from the exit aperture (waist there): w(z) = √((d/2)² + (Θz/2)²), then
+ * peak and aperture-averaged values. Give a power (W → W/m²) or a pulse energy (J → J/m²).
+ * Example: 5 W, d = 2.83 mm, Θ = 1.41 mrad, z = 100 m, D = 7 mm → w = 70.51 mm, peak 640.2 W/m²,
+ * averaged 638.6 W/m².
+ */
+export function exposureAtDistance(input: { amount: number; diameter_m: number; fullDivergence_rad: number; distance_m: number; aperture_m: number }): AtDistance {
+	const { amount, diameter_m, fullDivergence_rad, distance_m, aperture_m } = input;
+	requirePositive(amount, 'power or energy', '');
+	requirePositive(diameter_m, 'beam diameter', 'm');
+	requirePositive(aperture_m, 'limiting aperture', 'm');
+	if (!(Number.isFinite(fullDivergence_rad) && fullDivergence_rad >= 0)) throw new RangeError(`beam divergence must be ≥ 0 rad — got ${fullDivergence_rad} rad`);
+	if (!(Number.isFinite(distance_m) && distance_m >= 0)) throw new RangeError(`distance must be ≥ 0 m — got ${distance_m} m`);
+	const w = Math.hypot(diameter_m / 2, (fullDivergence_rad * distance_m) / 2);
+	return { peak: peakIrradiance_W_m2(amount, w), averaged: apertureAveragedIrradiance_W_m2(amount, aperture_m, w), w_m: w };
 }

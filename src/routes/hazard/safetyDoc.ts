@@ -1,0 +1,53 @@
+/**
+ * The `safety` section of the setup document: the hazard workspace's inputs as the user typed them
+ * (text with units, so nothing is lost while invalid) and the lab inventory CSV. Validated on every
+ * read; a section that fails is replaced by the defaults for display and the reason is shown, while
+ * the stored text is left as it was until the user edits.
+ */
+import * as v from 'valibot';
+import { standardChoices } from '$lib/safety/limits/index';
+import { viewingCases } from '$lib/safety/exposure';
+
+const text = (d: string) => v.optional(v.string(), d);
+
+export const SafetySchema = v.object({
+	version: v.optional(v.literal(1), 1),
+	label: text('Teal line alignment module'),
+	standard: v.optional(v.picklist(standardChoices as unknown as [string, ...string[]]), 'stricter'),
+	/** 'exit': waist at the exit aperture from diameter and divergence; 'bench': the beam the Bench propagates. */
+	beamFrom: v.optional(v.picklist(['exit', 'bench']), 'exit'),
+	wavelength: text('514.5 nm'),
+	emission: v.optional(v.picklist(['cw', 'pulsed']), 'cw'),
+	power: text('5 W'),
+	pulseEnergy: text('1 mJ'),
+	pulseWidth: text('10 ns'),
+	repRate: text(''),
+	diameter: text('2.83 mm'),
+	divergence: text('1.41 mrad'),
+	duration: text('0.25 s'),
+	viewing: v.optional(v.picklist(viewingCases as unknown as [string, ...string[]]), 'accidental'),
+	sourceAngle: text(''),
+	opticOn: v.optional(v.boolean(), false),
+	opticAperture: text('50 mm'),
+	opticMagnification: text('7'),
+	opticTransmission: text('0.9'),
+	diffuseOn: v.optional(v.boolean(), false),
+	reflectance: text('0.9'),
+	viewingAngle: text('0 deg'),
+	inventoryCsv: text('')
+});
+
+export type SafetyDoc = v.InferOutput<typeof SafetySchema>;
+export type SafetyKey = keyof SafetyDoc;
+
+export const safetyDefaults: SafetyDoc = v.parse(SafetySchema, {});
+
+/** Read the section; `problem` says why stored content was not usable. */
+export function readSafety(raw: unknown): { doc: SafetyDoc; problem: string | null } {
+	if (raw === undefined) return { doc: safetyDefaults, problem: null };
+	const r = v.safeParse(SafetySchema, raw);
+	if (r.success) return { doc: r.output, problem: null };
+	const issue = r.issues[0];
+	const where = issue.path?.map((p) => String(p.key)).join('.') ?? 'section';
+	return { doc: safetyDefaults, problem: `The saved hazard inputs could not be read (${where}: ${issue.message}); defaults are shown.` };
+}

@@ -1,0 +1,97 @@
+import { test, expect, type Page } from '@playwright/test';
+
+// The caution text as the engine writes it (src/lib/safety/cautions.ts); repeated here so the browser
+// test checks the visible text, not a value it reads back from the app.
+const cautions = [
+	'First-pass estimate, not a hazard evaluation.',
+	"The applicable standard, local regulations and the site's laser safety officer decide.",
+	'Results depend on the inputs, which the user must verify.'
+];
+
+async function expectNoBrokenNumbers(page: Page) {
+	const text = (await page.locator('main').innerText()).replace(/"[^"]*"/g, '');
+	expect(text).not.toMatch(/\bNaN\b|\bundefined\b|Infinity/);
+}
+
+test.beforeEach(async ({ page }) => {
+	await page.goto('/hazard/');
+	await page.evaluate(() => localStorage.clear());
+	await page.goto('/hazard/');
+	await expect(page.getByTestId('hz-results')).toBeVisible();
+});
+
+test('the workspace computes the reference beam and keeps the cautions in view', async ({ page }) => {
+	// 514.5 nm, 5 W, 2.83 mm, 1.41 mrad, 0.25 s: E = 18·0.25^0.75/0.25 = 25.46 W/m² (Directive 2006/25/EC
+	// Table 2.2, from memory); formula NOHD (√(4P/(πE)) − d/√2)/(Θ/√2) = 499.6 m; OD 3.71 → 4.
+	await expect(page.getByTestId('hz-mpe-E')).toContainText('25.46 W/m²');
+	await expect(page.getByTestId('hz-nohd-formula')).toHaveText('499.6 m');
+	await expect(page.getByTestId('hz-nohd-beam')).toHaveText('501.6 m');
+	await expect(page.getByTestId('hz-od')).toContainText('at least OD 4');
+	for (const c of cautions) await expect(page.getByTestId('cautions')).toContainText(c);
+	await expect(page.getByTestId('cautions')).toBeVisible();
+	await expect(page.getByTestId('hz-plot')).toBeVisible();
+	await expect(page.getByTestId('hz-zone').first()).toBeVisible();
+	await expectNoBrokenNumbers(page);
+});
+
+test('editing the power changes the distances; a bad wavelength is refused with the rule', async ({ page }) => {
+	await page.getByTestId('hz-power').fill('50 mW');
+	await expect(page.getByTestId('hz-nohd-formula')).not.toHaveText('499.6 m');
+	await page.getByTestId('hz-wavelength').fill('150 nm');
+	await expect(page.getByText('Wavelength must be ≥ 180 nm and ≤ 1 mm — got 150 nm')).toBeVisible();
+	await expect(page.getByTestId('hz-no-result')).toBeVisible();
+	await expect(page.getByTestId('cautions')).toContainText(cautions[0]);
+});
+
+test('pulsed emission shows each pulse rule and which limits; aided and diffuse read-outs appear', async ({ page }) => {
+	await page.getByTestId('hz-pulsed').check();
+	await page.getByTestId('hz-energy').fill('1 mJ');
+	await page.getByTestId('hz-width').fill('10 ns');
+	await page.getByTestId('hz-rate').fill('10 kHz');
+	await expect(page.getByTestId('hz-pulse-rules')).toContainText('repetitive pulse (C_P) ◀ limits');
+	await page.getByTestId('hz-optic-on').check();
+	await expect(page.getByTestId('hz-aided')).toBeVisible();
+	await page.getByTestId('hz-diffuse-on').check();
+	await expect(page.getByTestId('hz-diffuse')).toContainText('m');
+	await expectNoBrokenNumbers(page);
+});
+
+test('the whole-lab table imports the demo lab and exports CSV', async ({ page }) => {
+	await page.getByTestId('hz-lab-demo').click();
+	const rows = page.getByTestId('hz-lab-table').locator('tbody tr');
+	await expect(rows).toHaveCount(8);
+	await expect(page.getByTestId('hz-lab-table')).toContainText('Teal line alignment module');
+	const download = page.waitForEvent('download');
+	await page.getByTestId('hz-lab-export').click();
+	const file = await download;
+	expect(file.suggestedFilename()).toBe('lab-hazard-table.csv');
+	const stream = await file.createReadStream();
+	let text = '';
+	for await (const chunk of stream) text += chunk;
+	expect(text.split('\n')[0]).toMatch(/^line,name,room,wavelength_nm/);
+	expect(text).toContain(cautions[0]);
+});
+
+test('the print view holds every caution and the review lines', async ({ page }) => {
+	await page.getByTestId('hz-report-link').click();
+	await expect(page.getByTestId('hz-report')).toBeVisible();
+	await page.emulateMedia({ media: 'print' });
+	for (const id of ['report-cautions', 'report-cautions-end']) {
+		for (const c of cautions) await expect(page.getByTestId(id)).toContainText(c);
+		await expect(page.getByTestId(id)).toBeVisible();
+	}
+	await expect(page.getByTestId('report-cautions')).toContainText('About the values of this edition');
+	await expect(page.getByTestId('hz-review')).toContainText('Review by the laser safety officer');
+	await expect(page.getByTestId('hz-nohd-formula')).toHaveText('499.6 m');
+	await expect(page.getByRole('button', { name: 'Print' })).toBeHidden();
+	await expect(page.locator('header.top')).toBeHidden();
+});
+
+test('the beam can come from the Bench: distances are measured along the propagated train', async ({ page }) => {
+	await page.getByTestId('hz-beam-bench').check();
+	await expect(page.getByTestId('hz-results')).toBeVisible();
+	await expect(page.getByTestId('hz-nohd-beam')).toContainText('m');
+	await expect(page.getByTestId('hz-plot')).toBeVisible();
+	await expect(page.getByTestId('cautions')).toContainText(cautions[2]);
+	await expectNoBrokenNumbers(page);
+});

@@ -1,0 +1,99 @@
+import { test, expect, type Page } from '@playwright/test';
+
+async function expectNoBrokenNumbers(page: Page) {
+	// Messages may quote what the user typed; everything else must be a real number.
+	const text = (await page.locator('main').innerText()).replace(/"[^"]*"/g, '');
+	expect(text).not.toMatch(/\bNaN\b|\bundefined\b|Infinity/);
+}
+
+test.beforeEach(async ({ page }) => {
+	await page.goto('/match/');
+	await page.evaluate(() => localStorage.clear());
+	await page.goto('/match/');
+	await expect(page.getByRole('heading', { name: '2 · Target' })).toBeVisible();
+});
+
+test('pick a target, run the search with progress, put a solution on the bench', async ({ page }) => {
+	// A free waist target, 60 µm at 700 mm.
+	await page.getByTestId('target-waist').check();
+	await page.getByTestId('target-at').fill('700 mm');
+	await page.getByTestId('target-wx').fill('60 µm');
+	await expect(page.getByTestId('target-readout')).toContainText('60 µm');
+	await expect(page.getByTestId('single-lens')).toContainText('○ x');
+
+	await page.getByTestId('match-run').click();
+	const progress = page.getByTestId('match-progress');
+	await expect(progress).toBeVisible();
+	await expect(progress.locator('progress')).toBeVisible();
+	await expect(progress).toContainText(/Done: (\d+) of \1 lens combinations/, { timeout: 30_000 });
+	const rows = page.getByTestId('match-row');
+	await expect(rows.first()).toBeVisible();
+	expect(await rows.count()).toBeGreaterThan(1);
+	await expect(page.getByTestId('rail-sketch')).toBeVisible();
+	await expectNoBrokenNumbers(page);
+
+	// The first solution's lenses, as the table shows them.
+	const lensText = await rows.first().locator('td').nth(1).innerText();
+	const n = lensText.trim().split('\n').length;
+	await rows.first().getByTestId('match-apply').click();
+	await expect(page).toHaveURL(/\/$/);
+	const table = page.getByTestId('element-table');
+	await expect(table).toContainText('ML1');
+	if (n > 1) await expect(table).toContainText('ML2');
+
+	// Applying again replaces the earlier lenses instead of piling them up.
+	await page.goto('/match/');
+	await page.getByTestId('match-run').click();
+	await expect(page.getByTestId('match-progress')).toContainText(/Done/, { timeout: 30_000 });
+	await page.getByTestId('match-row').first().getByTestId('match-apply').click();
+	await expect(page).toHaveURL(/\/$/);
+	await expect(page.getByTestId('element-table').locator('tbody tr', { hasText: 'ML1' })).toHaveCount(1);
+});
+
+test('a cavity target shows its stability; an unstable one is reported and blocks the search', async ({ page }) => {
+	await page.getByTestId('target-cavity').check();
+	await expect(page.getByTestId('cavity-readout')).toContainText('Stable');
+	await expect(page.getByTestId('cavity-g1g2')).toHaveText('0.5');
+	await expect(page.getByTestId('cavity-halftrace')).toHaveText('0');
+	await page.getByTestId('target-length').fill('600 mm');
+	await expect(page.getByTestId('cavity-readout')).toContainText('Unstable');
+	await expect(page.getByTestId('match-run')).toBeDisabled();
+	await expect(page.getByTestId('match-blocked')).toContainText('no stable mode');
+	await expectNoBrokenNumbers(page);
+});
+
+test('bad numbers name the field and the range, keep the text, and survive a reload', async ({ page }) => {
+	for (const [value, re] of [
+		['', /Rail end is empty/],
+		['0', /Rail end must be after the rail start/],
+		['-5 mm', /Rail end must be after the rail start/],
+		['NaN', /Rail end/],
+		['3 kg', /wrong unit/],
+		['1e9 m', /Rail end must be ≥ −100 m and ≤ 100 m/]
+	] as const) {
+		await page.getByTestId('rail-to').fill(value);
+		await expect(page.getByText(re).first()).toBeVisible();
+		await expect(page.getByTestId('rail-to')).toHaveValue(value);
+		await expectNoBrokenNumbers(page);
+	}
+	await expect(page.getByTestId('match-run')).toBeDisabled();
+	await page.getByTestId('inv-focal-0').fill('0 mm');
+	await expect(page.getByText(/focal length must be at least 1 mm/).first()).toBeVisible();
+	await page.waitForTimeout(400);
+	await page.reload();
+	await expect(page.getByTestId('rail-to')).toHaveValue('1e9 m');
+	await expect(page.getByTestId('inv-focal-0')).toHaveValue('0 mm');
+});
+
+test('CSV import names each bad line; the demo shelf loads', async ({ page }) => {
+	await page.getByText('Import a lens list (CSV)').click();
+	await page.getByTestId('inv-csv').fill('lens,f_mm,dia_mm,qty\nA,100,25.4,1\nB,zero,25.4,1\nC,50,25.4,-2\n');
+	await page.getByTestId('inv-import').click();
+	await expect(page.getByTestId('csv-errors')).toContainText('line 3: f_mm');
+	await expect(page.getByTestId('csv-errors')).toContainText('line 4: qty');
+	await page.getByTestId('inv-csv').fill('lens,f_mm,dia_mm,qty\nA,100,25.4,1\nB,-40,,2\n');
+	await page.getByTestId('inv-import').click();
+	await expect(page.getByTestId('inventory-table').locator('tbody tr')).toHaveCount(2);
+	await page.getByTestId('inv-demo').click();
+	await expect(page.getByTestId('inventory-table').locator('tbody tr')).toHaveCount(16);
+});

@@ -1,0 +1,89 @@
+/**
+ * Measure workspace in the browser: paste widths, see the fit, the flagged line and the plan check,
+ * send the fitted beam to the bench; load a beam image and add its widths.
+ * Widths come from the ISO 11146-1 caustic d(z)² = d0² + Θ²(z − z0)², Θ = 4·M²·λ/(π·d0)
+ * (ISO 11146-1:2005, clauses 3 and 9; from memory), so the fit must return d0, z0 and M².
+ */
+import { test, expect, type Page } from '@playwright/test';
+
+const lam = 1064e-9;
+function caustic(d0: number, z0: number, m2: number, z: number) {
+	const theta = (4 * m2 * lam) / (Math.PI * d0);
+	return Math.sqrt(d0 * d0 + theta * theta * (z - z0) ** 2);
+}
+
+/** Ten planes laid out for x (half within zR, half beyond 2zR), z in mm, diameters in µm. */
+function widthsText(extra: string[] = []): string {
+	const zR = (Math.PI * 0.42e-3 ** 2) / (4 * 1.2 * lam);
+	const lines = ['z,dx,dy'];
+	for (const k of [-0.9, -0.5, -0.1, 0.3, 0.8, -3, -2.4, 2.3, 2.9, 3.6]) {
+		const z = 0.3 + k * zR;
+		lines.push(`${(z * 1e3).toFixed(4)},${(caustic(0.42e-3, 0.3, 1.2, z) * 1e6).toFixed(4)},${(caustic(0.38e-3, 0.29, 1.5, z) * 1e6).toFixed(4)}`);
+	}
+	return [...lines.slice(0, 3), ...extra, ...lines.slice(3)].join('\n');
+}
+
+async function expectNoBrokenNumbers(page: Page) {
+	const text = (await page.locator('main').innerText()).replace(/"[^"]*"/g, '');
+	expect(text).not.toMatch(/\bNaN\b|\bundefined\b|Infinity/);
+}
+
+test.beforeEach(async ({ page }) => {
+	await page.goto('/measure/');
+	await page.evaluate(() => localStorage.clear());
+	await page.goto('/measure/');
+	await expect(page.getByTestId('widths-input')).toBeVisible();
+});
+
+test('paste widths, see the fit with uncertainties and the flagged line, send the beam to the bench', async ({ page }) => {
+	await page.getByTestId('m-wavelength').fill('1064 nm');
+	await page.getByTestId('widths-input').fill(widthsText(['812.5,abc,400']));
+	await expect(page.getByTestId('flagged-rows')).toContainText('line 4');
+	await expect(page.getByTestId('flagged-rows')).toContainText('dx "abc" is not a number');
+	await expect(page.getByTestId('fit-x-m2')).toHaveText(/^1\.2 ± /);
+	await expect(page.getByTestId('fit-y-m2')).toHaveText(/^1\.5 ± /);
+	await expect(page.getByTestId('fit-x-d0_m')).toHaveText(/^420 ± [\d.×^−]+ µm$/);
+	await expect(page.getByTestId('fit-x-z0_m')).toHaveText(/^300 ± [\d.×^−]+ mm$/);
+	await expect(page.getByTestId('measure-plot')).toBeVisible();
+	await expect(page.getByTestId('point-x')).toHaveCount(10);
+	await expect(page.getByTestId('point-y')).toHaveCount(10);
+	await expect(page.getByTestId('plan-check')).toContainText('x axis: ✓ plan meets the rule');
+	await expect(page.getByTestId('source-preview')).toContainText('x: waist radius 210 µm at 300 mm, M² 1.2');
+	await expectNoBrokenNumbers(page);
+
+	await page.getByTestId('send-to-bench').click();
+	await expect(page).toHaveURL(/\/$/);
+	await expect(page.getByTestId('src-x-m2')).toHaveValue('1.2');
+	await expect(page.getByTestId('src-y-m2')).toHaveValue('1.5');
+	await expect(page.getByTestId('src-x-waist')).toHaveValue('210 µm');
+	await expect(page.getByTestId('src-y-waistAt')).toHaveValue('290 mm');
+	await expect(page.getByTestId('src-wavelength')).toHaveValue('1064 nm');
+	await expect(page.getByTestId('caustic-plot')).toBeVisible();
+});
+
+test('too few planes: the plan check says where to add planes', async ({ page }) => {
+	const lines = widthsText().split('\n');
+	await page.getByTestId('widths-input').fill([lines[0], lines[1], lines[3], lines[4], lines[8], lines[9]].join('\n'));
+	await expect(page.getByTestId('plan-check')).toContainText('only 5 planes; the standard asks for at least 10');
+	await expect(page.getByTestId('plan-add-x')).toContainText(/Add \d planes? within one z_R, between [\d.]+ and [\d.]+ mm — e\.g\. at/);
+	await expectNoBrokenNumbers(page);
+});
+
+test('a beam image (CSV matrix) is analysed in the page and its widths join the table', async ({ page }) => {
+	// A round Gaussian, 1/e² radius 12 pixels, on a 96 × 96 frame with a 100-count background:
+	// D4σ = 2w = 24 pixels (Siegman, "Lasers" 1986, §17.1) = 132 µm at a 5.5 µm pitch.
+	const rows: string[] = [];
+	for (let r = 0; r < 96; r++) {
+		const row: number[] = [];
+		for (let c = 0; c < 96; c++) row.push(Math.round(100 + 20000 * Math.exp((-2 * ((c - 48) ** 2 + (r - 46) ** 2)) / 144)));
+		rows.push(row.join(','));
+	}
+	await page.getByTestId('image-files').setInputFiles({ name: 'plane 250mm.csv', mimeType: 'text/csv', buffer: Buffer.from(rows.join('\n')) });
+	const card = page.getByTestId('image-card');
+	await expect(card.getByTestId('image-moments')).toContainText('132 µm, 132 µm');
+	await expect(card.getByTestId('image-z')).toHaveValue('250 mm');
+	await page.getByTestId('add-image-planes').click();
+	await expect(page.getByTestId('widths-input')).toHaveValue(/^z,dx,dy\n250,13[12][.\d]*,13[12][.\d]*\n$/);
+	await expect(page.getByTestId('table-summary')).toContainText('1 plane read');
+	await expectNoBrokenNumbers(page);
+});
