@@ -82,7 +82,7 @@ export async function run() {
 			const out = [];
 			const path = () => document.querySelector('[data-testid="caustic-plot"] path.x');
 			let missed = 0;
-			for (let i = 0; i < 200; i++) {
+			for (let i = 0; i < 220; i++) {
 				const x = start.x + 5 + ((i % 40) - 20) * 1.5 + (i % 2) * 0.5;
 				const before = path().getAttribute('d');
 				const t0 = performance.now();
@@ -99,6 +99,10 @@ export async function run() {
 			handle.dispatchEvent(new PointerEvent('pointerup', { bubbles: true, clientX: start.x, clientY: y, pointerId: 1 }));
 			return out;
 		})()`);
+		// The first events of a page run cold code (the JIT has not optimised it yet): report the very
+		// first one on its own and take the percentiles over the 200 that follow a 20-event warm-up.
+		const firstEvent = samples[0];
+		samples.splice(0, 20);
 		samples.sort((a, b) => a - b);
 		const p95 = samples[Math.floor(samples.length * 0.95)];
 		const median = samples[Math.floor(samples.length / 2)];
@@ -107,6 +111,7 @@ export async function run() {
 			{ figure: 'first-load JavaScript (gzip, up to interactive)', value: firstLoadJs / 1024, unit: 'kB', goal: '≤ 120', ok: firstLoadJs / 1024 <= 120 },
 			{ figure: 'unit engine loaded lazily after first view (gzip)', value: lazyJs / 1024, unit: 'kB', goal: 'not in first load' },
 			{ figure: 'cold load to interactive, localhost (median of 5)', value: loads[2], unit: 'ms', goal: '≤ 500', ok: loads[2] <= 500 },
+			{ figure: 'drag latency, first event of the page (cold JIT)', value: firstEvent, unit: 'ms', goal: 'reference' },
 			{ figure: 'drag latency, 20-element astigmatic train, median', value: median, unit: 'ms', goal: 'reference' },
 			{ figure: 'drag latency, 20-element astigmatic train, p95', value: p95, unit: 'ms', goal: '≤ 8', ok: p95 <= 8 }
 		];

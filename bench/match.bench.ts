@@ -30,10 +30,12 @@ function time(n: number) {
 
 export async function run() {
 	time(2); // warm-up
-	const two = time(2);
+	// Median of five runs: a single ~0.1 s run is at the mercy of the scheduler on a shared 2-core machine.
+	const runs = Array.from({ length: 5 }, () => time(2)).sort((a, b) => a.ms - b.ms);
+	const two = runs[2];
 	const three = time(3);
 	return [
-		{ figure: 'two-lens match, 50 lenses, 1 m rail (time)', value: two.ms, unit: 'ms', goal: '≤ 100 ms', ok: two.ms <= 100 },
+		{ figure: 'two-lens match, 50 lenses, 1 m rail (median of 5)', value: two.ms, unit: 'ms', goal: '≤ 100 ms', ok: two.ms <= 100 },
 		{ figure: 'two-lens match, best efficiency', value: two.best, unit: '', goal: 'report' },
 		{ figure: 'three-lens match, 50 lenses, 1 m rail (time)', value: three.ms / 1000, unit: 's', goal: '≤ 3 s', ok: three.ms <= 3000 },
 		{ figure: 'three-lens match, best efficiency', value: three.best, unit: '', goal: 'report' }
