@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { axisEigenmode, linearRoundTrip, roundTripEigenmode, roundTripMatrices, twoMirrorCavity } from '../../src/lib/optics/cavity';
+import { axisEigenmode, eigenmodeAlong, linearRoundTrip, mirrorRoundTrip, roundTripEigenmode, roundTripMatrices, twoMirrorCavity, type CavityMirror } from '../../src/lib/optics/cavity';
 import { radiusAt_m, curvatureAt_m } from '../../src/lib/optics/beam';
 import { expectClose } from '../helpers';
 
@@ -76,5 +76,120 @@ describe('round-trip eigenmode', () => {
 		const m = axisEigenmode([1.5, 1, 1.25, 1.5], lam);
 		expect(m.stable).toBe(false);
 		expect(m.w_m).toBeNull();
+	});
+});
+
+describe('ring and folded cavities of tilted mirrors', () => {
+	const deg = Math.PI / 180;
+	// A planar bow-tie: two curved mirrors (R, at θ) joined by the short arm d1; two flat mirrors share the long way d2.
+	const bowTie = (R: number, theta: number, d1: number, long: [number, number, number]): { mirrors: CavityMirror[]; arms: number[] } => ({
+		mirrors: [
+			{ r_m: R, angle_rad: theta },
+			{ r_m: R, angle_rad: theta },
+			{ r_m: Infinity, angle_rad: theta },
+			{ r_m: Infinity, angle_rad: theta }
+		],
+		arms: [d1, ...long]
+	});
+	// Per-axis focal length of a tilted spherical mirror: f·cosθ tangential (x), f/cosθ sagittal (y), f = R/2
+	// (Kogelnik, Ippen, Dienes & Shank, "Astigmatically compensated cavities for CW dye lasers", IEEE JQE 8, 373, 1972, eq. 1).
+	const fAxis = (R: number, theta: number) => ({ x: (R / 2) * Math.cos(theta), y: R / 2 / Math.cos(theta) });
+
+	it('equal arms: each axis is the unfolded symmetric resonator of radius 2·f_axis — w0² = (λ/2π)·sqrt(d(2R − d)) at the middle of each arm, (A+D)/2 = 2g² − 1 (Kogelnik & Li, "Laser Beams and Resonators", 1966, §IV lens waveguide ≡ §V symmetric resonator; KIDS 1972 eq. 1)', () => {
+		const R = 0.1;
+		const theta = 12 * deg;
+		const d = 0.18;
+		const c = bowTie(R, theta, d, [0.05, 0.08, 0.05]);
+		const { parts, places } = mirrorRoundTrip('ring', c.mirrors, c.arms, 0);
+		const e = roundTripEigenmode(parts, lam);
+		expect(e.stable).toBe(true);
+		for (const a of ['x', 'y'] as const) {
+			const Ra = 2 * fAxis(R, theta)[a];
+			const g = 1 - d / Ra;
+			expectClose(e[a].halfTrace, 2 * g * g - 1, 1e-12, `${a} (A+D)/2`);
+			const w0 = Math.sqrt((lam / (2 * Math.PI)) * Math.sqrt(d * (2 * Ra - d)));
+			const along = eigenmodeAlong(parts, e[a].q!, lam, a);
+			const waists = along.filter((p) => p.waist).map((p) => ({ arm: places[p.part]!.arm, at: p.waist!.fromStart_m, w0: p.waist!.w0_m }));
+			// One waist in the middle of the short arm, one in the middle of the long way (50 mm + 40 mm into arm 3).
+			expect(waists.map((w) => w.arm)).toEqual([0, 2]);
+			expectClose(waists[0].at, d / 2, 1e-9, `${a} waist place, short arm`);
+			expectClose(waists[1].at, 0.04, 1e-9, `${a} waist place, long way`);
+			for (const w of waists) expectClose(w.w0, w0, 1e-9, `${a} waist size`);
+		}
+		expect(e.x.w0_m).not.toBeCloseTo(e.y.w0_m!, 7);
+	});
+
+	it('unequal arms: (A+D)/2 = 2(1 − d1/2f)(1 − d2/2f) − 1 per axis, and the tangential stability edge d1 = 2f_t + 4f_t²/(d2 − 2f_t) (periodic lens guide with alternating spacings, Kogelnik & Li 1966 §IV, stability |(A+D)/2| < 1; f per axis from KIDS 1972 eq. 1; edge derived, from memory)', () => {
+		const R = 0.1;
+		const theta = 15 * deg;
+		const long: [number, number, number] = [0.11, 0.16, 0.11];
+		const d2 = 0.38;
+		for (const d1 of [0.1, 0.115, 0.125]) {
+			const c = bowTie(R, theta, d1, long);
+			const e = roundTripEigenmode(mirrorRoundTrip('ring', c.mirrors, c.arms, 1).parts, lam);
+			for (const a of ['x', 'y'] as const) {
+				const f = fAxis(R, theta)[a];
+				expectClose(e[a].halfTrace, 2 * (1 - d1 / (2 * f)) * (1 - d2 / (2 * f)) - 1, 1e-12, `${a} at d1 = ${d1}`);
+			}
+		}
+		// Between R·cosθ and R/cosθ only the tangential axis is stable: the ring as a whole has no mode.
+		const mid = bowTie(R, theta, 0.1, long);
+		const e = roundTripEigenmode(mirrorRoundTrip('ring', mid.mirrors, mid.arms, 0).parts, lam);
+		expect([e.x.stable, e.y.stable, e.stable]).toEqual([true, false, false]);
+		expect(e.y.q).toBeNull();
+		// Either side of the tangential upper edge.
+		const ft = fAxis(R, theta).x;
+		const edge = 2 * ft + (4 * ft * ft) / (d2 - 2 * ft);
+		const inside = bowTie(R, theta, edge - 1e-4, long);
+		const outside = bowTie(R, theta, edge + 1e-4, long);
+		expect(roundTripEigenmode(mirrorRoundTrip('ring', inside.mirrors, inside.arms, 0).parts, lam).x.stable).toBe(true);
+		expect(roundTripEigenmode(mirrorRoundTrip('ring', outside.mirrors, outside.arms, 0).parts, lam).x.stable).toBe(false);
+	});
+
+	it('the mode does not depend on where the round trip starts: the q after arm 1 from mirror 1 is the eigen q of the round trip from mirror 2 (Siegman, "Lasers", 1986, §21.1, eigen q at any plane; from memory)', () => {
+		const c = bowTie(0.1, 8 * deg, 0.115, [0.11, 0.16, 0.11]);
+		const from1 = mirrorRoundTrip('ring', c.mirrors, c.arms, 0);
+		const from2 = mirrorRoundTrip('ring', c.mirrors, c.arms, 1);
+		for (const a of ['x', 'y'] as const) {
+			const e1 = roundTripEigenmode(from1.parts, lam)[a];
+			const e2 = roundTripEigenmode(from2.parts, lam)[a];
+			const along = eigenmodeAlong(from1.parts, e1.q!, lam, a);
+			// wEnd of arm 1 is the spot on mirror 2, where the second round trip starts.
+			expectClose(along[0].wEnd_m, e2.w_m!, 1e-9, a);
+			expectClose(e1.halfTrace, e2.halfTrace, 1e-12, a);
+		}
+	});
+
+	it('a folded cavity flat – fold mirror (R at θ) – flat: (A+D)/2 = 2(1 − L1/f)(1 − L2/f) − 1 per axis (unfolded: a lens guide of spacings 2L1, 2L2, Kogelnik & Li 1966 §IV; KIDS 1972 eq. 1 for f per axis)', () => {
+		const R = 0.2;
+		const theta = 10 * deg;
+		const L1 = 0.3;
+		const L2 = 0.105;
+		const { parts } = mirrorRoundTrip('folded', [{ r_m: Infinity, angle_rad: 0 }, { r_m: R, angle_rad: theta }, { r_m: Infinity, angle_rad: 0 }], [L1, L2], 0);
+		const e = roundTripEigenmode(parts, lam);
+		for (const a of ['x', 'y'] as const) {
+			const f = fAxis(R, theta)[a];
+			expectClose(e[a].halfTrace, 2 * (1 - L1 / f) * (1 - L2 / f) - 1, 1e-12, a);
+		}
+	});
+
+	it('a folded cavity with a flat fold at 0° is the plain two-mirror cavity (Kogelnik & Li 1966, eqs. 61–64)', () => {
+		const { parts } = mirrorRoundTrip('folded', [{ r_m: 0.75, angle_rad: 0 }, { r_m: Infinity, angle_rad: 0 }, { r_m: 2, angle_rad: 0 }], [0.25, 0.35], 0);
+		const e = roundTripEigenmode(parts, lam);
+		const c = twoMirrorCavity(0.75, 2, 0.6, lam);
+		expectClose(e.x.w_m!, c.wMirror1_m!, 1e-9);
+		expectClose(e.y.w_m!, c.wMirror1_m!, 1e-9);
+		const along = eigenmodeAlong(parts, e.x.q!, lam, 'x');
+		const w = along.find((p) => p.waist)!;
+		expectClose(w.waist!.w0_m, c.w0_m!, 1e-9);
+		expectClose((w.part === 0 ? 0 : 0.25) + w.waist!.fromStart_m, c.waistFromMirror1_m!, 1e-9);
+	});
+
+	it('refuses bad geometry with a RangeError naming the value and the rule', () => {
+		const m: CavityMirror[] = [{ r_m: 0.1, angle_rad: 0 }, { r_m: 0.1, angle_rad: 0 }, { r_m: Infinity, angle_rad: 0 }];
+		expect(() => mirrorRoundTrip('ring', m, [0.1, 0.1], 0)).toThrow(/arm lengths must be 3 values/);
+		expect(() => mirrorRoundTrip('ring', m, [0.1, 0, 0.1], 0)).toThrow(/arm 2 length must be > 0 m/);
+		expect(() => mirrorRoundTrip('folded', m, [0.1, 0.1], 2)).toThrow(/start arm must be a whole number from 0 to 1/);
+		expect(() => mirrorRoundTrip('ring', [{ r_m: 0.1, angle_rad: Math.PI / 2 }, ...m.slice(1)], [0.1, 0.1, 0.1], 0)).toThrow(/mirror 1 angle of incidence/);
 	});
 });

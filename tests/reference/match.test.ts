@@ -191,6 +191,76 @@ describe('document match section (src/lib/document/match.ts)', () => {
 		expectClose(moved.x.q.re + 0.02, after.re, 1e-9);
 		expectClose(moved.x.q.im, after.im, 1e-9);
 	});
+	it('ring target: the demo bow-tie is stable on both axes, its target is the eigenmode at the input mirror, an unstable ring blocks the search (Siegman, "Lasers", 1986, §21.1: stable when |(A+D)/2| < 1)', async () => {
+		const { compileMatchDoc, defaultMatchSection } = await import('../../src/lib/document/match');
+		const { emptySetup } = await import('../../src/lib/document/demo');
+		const m = defaultMatchSection();
+		m.target.kind = 'ring';
+		const c = compileMatchDoc({ ...emptySetup(), match: m });
+		expect(c.ring?.stable).toBe(true);
+		expect(c.problem?.target.what).toBe('cavity');
+		// Per axis (A+D)/2 = 2(1 − d1/2f)(1 − d2/2f) − 1 with f_t = f·cosθ, f_s = f/cosθ (Kogelnik, Ippen, Dienes & Shank,
+		// IEEE JQE 8, 373, 1972, eq. 1; two equal lenses with alternating spacings, Kogelnik & Li 1966 §IV). Demo: R = 100 mm, θ = 8°, d1 = 115 mm, d2 = 380 mm.
+		const th = (8 * Math.PI) / 180;
+		for (const [a, f] of [['x', 0.05 * Math.cos(th)], ['y', 0.05 / Math.cos(th)]] as const) {
+			expectClose(c.ring![a].halfTrace, 2 * (1 - 0.115 / (2 * f)) * (1 - 0.38 / (2 * f)) - 1, 1e-12, a);
+			// One waist in the short arm (3 → 4) and one on the long way, per axis.
+			expect(c.ring![a].waists.map((w) => w.arm).sort()).toContain(2);
+			expect(c.ring![a].wInput_m).toBeGreaterThan(0);
+		}
+		// The target's Rayleigh range at the input mirror equals the mode's (w at the input mirror from the q).
+		const t = c.problem!.target;
+		const lamDoc = c.inputBeam!.wavelength_m;
+		expectClose(Math.sqrt((lamDoc * (t.x.re ** 2 + t.x.im ** 2)) / (Math.PI * t.x.im)), c.ring!.x.wInput_m!, 1e-12);
+		// Between R·cosθ and R/cosθ (d1 = 100 mm at θ = 15°) only x is stable: reported, and no search.
+		m.target.ring.mirrors = m.target.ring.mirrors.map((r) => ({ ...r, angle: '15°' }));
+		m.target.ring.mirrors[2].arm = '100 mm';
+		const u = compileMatchDoc({ ...emptySetup(), match: m });
+		expect([u.ring?.x.stable, u.ring?.y.stable, u.ring?.stable]).toEqual([true, false, false]);
+		expect(u.problem).toBeNull();
+		expect(u.fieldErrors['target.ring']).toMatch(/no stable mode.*y sagittal \(A\+D\)\/2 = /);
+		expect(u.ring!.y.waists).toEqual([]);
+		// Bad typing names the mirror and the field.
+		m.target.ring.mirrors[1].angle = '95°';
+		m.target.ring.mirrors[3].arm = '0 mm';
+		m.target.ring.mirrors[0].r = 'round';
+		const b = compileMatchDoc({ ...emptySetup(), match: m });
+		expect(b.fieldErrors['target.ring.mirrors.1.angle']).toMatch(/Mirror 2 angle of incidence must be ≥ 0° and < 80°/);
+		expect(b.fieldErrors['target.ring.mirrors.3.arm']).toMatch(/Arm 4 → 1 length must be > 0/);
+		expect(b.fieldErrors['target.ring.mirrors.0.r']).toMatch(/Mirror 1 radius/);
+		expect(b.ring).toBeNull();
+	});
+	it('two-mirror cavity with an intracavity thin lens: equivalent g1 = 1 − L2/f − L0/R1, g2 = 1 − L1/f − L0/R2, L0 = L1 + L2 − L1·L2/f, w1² = (λL0/π)·sqrt(g2/(g1(1 − g1g2))) (Kogelnik, "Imaging of optical modes — resonators with internal lenses", Bell Syst. Tech. J. 44, 455, 1965; from memory)', async () => {
+		const { compileMatchDoc, defaultMatchSection } = await import('../../src/lib/document/match');
+		const { emptySetup } = await import('../../src/lib/document/demo');
+		const m = defaultMatchSection();
+		m.target.r1 = '2 m';
+		m.target.r2 = '1 m';
+		m.target.length = '400 mm';
+		m.target.lensF = '750 mm';
+		m.target.lensAt = '150 mm';
+		const c = compileMatchDoc({ ...emptySetup(), match: m });
+		const [R1, R2, L1, L2, f] = [2, 1, 0.15, 0.25, 0.75];
+		const L0 = L1 + L2 - (L1 * L2) / f;
+		const g1 = 1 - L2 / f - L0 / R1;
+		const g2 = 1 - L1 / f - L0 / R2;
+		expect(c.cavity?.stable).toBe(true);
+		expect(c.cavity?.lens).toEqual({ f_m: 0.75, fromMirror1_m: 0.15 });
+		expectClose(c.cavity!.g1g2, g1 * g2, 1e-12, 'g1·g2');
+		expectClose(c.cavity!.halfTrace, 2 * g1 * g2 - 1, 1e-12, '(A+D)/2');
+		const k = (c.inputBeam!.wavelength_m * L0) / Math.PI;
+		expectClose(c.cavity!.wMirror1_m!, Math.sqrt(k * Math.sqrt(g2 / (g1 * (1 - g1 * g2)))), 1e-9, 'w on mirror 1');
+		expectClose(c.cavity!.wMirror2_m!, Math.sqrt(k * Math.sqrt(g1 / (g2 * (1 - g1 * g2)))), 1e-9, 'w on mirror 2');
+		expect(c.problem).not.toBeNull();
+		// A strong lens makes it unstable: reported with (A+D)/2 and no search.
+		m.target.lensF = '50 mm';
+		const u = compileMatchDoc({ ...emptySetup(), match: m });
+		expect(u.cavity?.stable).toBe(false);
+		expect(u.problem).toBeNull();
+		expect(u.fieldErrors['target.cavity']).toMatch(/no stable mode.*\(A\+D\)\/2 = /);
+		m.target.lensAt = '500 mm';
+		expect(compileMatchDoc({ ...emptySetup(), match: m }).fieldErrors['target.lensAt']).toMatch(/less than the cavity length/);
+	});
 	it('a lens CSV with several bad lines names every one', () => {
 		const r = parseLensCsv('lens,f_mm,dia_mm,qty\nA,100,25.4,1\nB,,25.4,1\nC,50,-1,x\n');
 		expect(r.ok).toBe(false);

@@ -11,11 +11,11 @@
 import * as v from 'valibot';
 import { parseQuantity, type FieldSpec } from '../units/parse';
 import { fiberMode, type FiberMode } from '../optics/fiber';
-import { twoMirrorCavity, roundTripEigenmode, linearRoundTrip, type TwoMirrorCavity } from '../optics/cavity';
+import { twoMirrorCavity, roundTripEigenmode, linearRoundTrip, mirrorRoundTrip, eigenmodeAlong, type TwoMirrorCavity, type RoundTripPart, type RoundTripEigenmode } from '../optics/cavity';
 import { alignmentTolerance } from '../optics/overlap';
 import { resolveAxis, type SourceSpec } from '../optics/source';
 import { propagate, beamAt } from '../optics/train';
-import { cavityTarget, fiberTarget, waistTarget } from '../optics/solve/targets';
+import { cavityTarget, fiberTarget, roundTripTarget, waistTarget } from '../optics/solve/targets';
 import { parseLensCsv } from '../optics/solve/inventory';
 import type { ExpanderOptions } from '../optics/solve/expander';
 import type { MatchProblem, RankBy } from '../optics/solve/search';
@@ -29,18 +29,47 @@ export const MATCH_ID_PREFIX = 'match-';
 const text = v.string();
 const range = v.object({ from: text, to: text });
 
+/** A ring or folded cavity: its mirrors in beam order, each with the arm to the next mirror. */
+const RingSchema = v.object({
+	/** 'ring': closed loop, the last arm returns to mirror 1; 'folded': standing wave from the first to the last mirror (end mirrors at normal incidence). */
+	type: v.picklist(['ring', 'folded']),
+	/** r: radius of curvature ("flat" or + concave); angle: angle of incidence; arm: length to the next mirror. */
+	mirrors: v.array(v.object({ r: text, angle: text, arm: text })),
+	/** 0-based: the beam enters through this mirror, into the arm towards the next mirror. */
+	input: v.optional(v.pipe(v.number(), v.integer(), v.minValue(0)), 0)
+});
+export type RingSection = v.InferOutput<typeof RingSchema>;
+
+/** The invented Larkspur St. lab's bow-tie ring: two flat and two 100 mm mirrors, all at 8°. */
+export function defaultRing(): RingSection {
+	return {
+		type: 'ring',
+		mirrors: [
+			{ r: 'flat', angle: '8°', arm: '160 mm' },
+			{ r: 'flat', angle: '8°', arm: '110 mm' },
+			{ r: '100 mm', angle: '8°', arm: '115 mm' },
+			{ r: '100 mm', angle: '8°', arm: '110 mm' }
+		],
+		input: 0
+	};
+}
+
 export const MatchSectionSchema = v.object({
 	/** Where the beam to be matched comes from: the bench's source itself, or the bench's beam at the rail start. */
 	input: v.optional(v.object({ from: v.picklist(['source', 'bench']) }), { from: 'source' }),
 	target: v.object({
-		kind: v.picklist(['waist', 'cavity', 'fiber']),
-		/** waist: waist position; cavity: position of mirror 1 (input mirror); fiber: fibre face. */
+		kind: v.picklist(['waist', 'cavity', 'ring', 'fiber']),
+		/** waist: waist position; cavity: position of mirror 1 (input mirror); ring: position of the input mirror; fiber: fibre face. */
 		at: text,
 		wx: v.optional(text, ''),
 		wy: v.optional(text, ''),
 		r1: v.optional(text, ''),
 		r2: v.optional(text, ''),
 		length: v.optional(text, ''),
+		/** cavity: an optional thin (e.g. thermal) lens between the mirrors: focal length ('' = none) and distance from mirror 1. */
+		lensF: v.optional(text, ''),
+		lensAt: v.optional(text, ''),
+		ring: v.optional(RingSchema, defaultRing),
 		/** fiber: 'mfd' (mode-field diameter given) or 'core' (core radius + NA). */
 		fiberBy: v.optional(v.picklist(['mfd', 'core']), 'mfd'),
 		mfd: v.optional(text, ''),
@@ -63,7 +92,7 @@ export type InventoryRow = MatchSection['inventory'][number];
 export function defaultMatchSection(): MatchSection {
 	return {
 		input: { from: 'source' },
-		target: { kind: 'cavity', at: '900 mm', wx: '50 µm', wy: '', r1: 'flat', r2: '500 mm', length: '250 mm', fiberBy: 'mfd', mfd: '6.2 µm', coreRadius: '3 µm', na: '0.13' },
+		target: { kind: 'cavity', at: '900 mm', wx: '50 µm', wy: '', r1: 'flat', r2: '500 mm', length: '250 mm', lensF: '', lensAt: '', ring: defaultRing(), fiberBy: 'mfd', mfd: '6.2 µm', coreRadius: '3 µm', na: '0.13' },
 		inventory: stockToRows([
 			{ label: 'LS drawer A1 (−50)', f_m: -0.05, diameter_m: 0.0127, count: 2 },
 			{ label: 'LS drawer B2 (+50)', f_m: 0.05, diameter_m: 0.0254, count: 2 },
@@ -122,9 +151,37 @@ export interface TargetReadout {
 }
 
 export interface CavityReadout extends TwoMirrorCavity {
+	/** g1·g2; with an intracavity lens, the round trip's equivalent (1 + (A + D)/2)/2. */
 	g1g2: number;
 	/** (A + D)/2 of the round trip (Siegman 1986, eq. 21.8); stable when |(A + D)/2| < 1. */
 	halfTrace: number;
+	/** The intracavity thin lens, when one is given. */
+	lens: { f_m: number; fromMirror1_m: number } | null;
+}
+
+/** One axis of a ring or folded cavity. */
+export interface RingAxisReadout {
+	/** (A + D)/2 of the round trip on this axis; stable when between −1 and 1. */
+	halfTrace: number;
+	stable: boolean;
+	/** Mode radius at the input mirror, null when unstable. */
+	wInput_m: number | null;
+	/** Waists of the mode: arm (0-based, from mirror arm to arm + 1), distance from the arm's first mirror. */
+	waists: { arm: number; fromMirror_m: number; w0_m: number }[];
+}
+
+export interface RingReadout {
+	type: 'ring' | 'folded';
+	/** x: tangential (in the plane of the fold), y: sagittal. */
+	x: RingAxisReadout;
+	y: RingAxisReadout;
+	stable: boolean;
+	/** Optical path of one round trip. */
+	roundTrip_m: number;
+	/** 0-based input mirror. */
+	input: number;
+	/** Arms as "from → to" mirror numbers (1-based), in the section's order. */
+	arms: [number, number][];
 }
 
 export interface CompiledMatch {
@@ -135,6 +192,7 @@ export interface CompiledMatch {
 	/** All messages in order, each naming its field. */
 	errors: string[];
 	cavity: CavityReadout | null;
+	ring: RingReadout | null;
 	fiber: FiberMode | null;
 	target: TargetReadout | null;
 	/** Where the input beam came from, in words, and its waist per axis. */
@@ -169,7 +227,7 @@ function radiusText(t: string, label: string, path: string, err: (p: string, m: 
  * when the section takes the bench's beam at the rail start as its input.
  */
 export function compileMatchSection(raw: unknown, source: SourceSpec, doc?: SetupDoc): CompiledMatch {
-	const out: CompiledMatch = { problem: null, fieldErrors: {}, errors: [], cavity: null, fiber: null, target: null, input: null, ignored: [], rail: null, inventory: null, inputBeam: null };
+	const out: CompiledMatch = { problem: null, fieldErrors: {}, errors: [], cavity: null, ring: null, fiber: null, target: null, input: null, ignored: [], rail: null, inventory: null, inputBeam: null };
 	const err = (path: string, message: string) => {
 		if (!(path in out.fieldErrors)) out.fieldErrors[path] = message;
 		out.errors.push(message);
@@ -205,8 +263,9 @@ export function compileMatchSection(raw: unknown, source: SourceSpec, doc?: Setu
 
 	// Target.
 	const t = m.target;
-	const at = q('target.at', t.at, POS(t.kind === 'cavity' ? 'Mirror 1 position' : t.kind === 'fiber' ? 'Fibre face position' : 'Target waist position'));
-	if (Number.isFinite(at) && railOk && !(at > railFrom)) err('target.at', `${t.kind === 'cavity' ? 'Mirror 1 position' : t.kind === 'fiber' ? 'Fibre face position' : 'Target waist position'} must lie after the rail start (${m.rail.from.trim()}) — got ${t.at.trim()}`);
+	const atName = t.kind === 'cavity' ? 'Mirror 1 position' : t.kind === 'ring' ? 'Input mirror position' : t.kind === 'fiber' ? 'Fibre face position' : 'Target waist position';
+	const at = q('target.at', t.at, POS(atName));
+	if (Number.isFinite(at) && railOk && !(at > railFrom)) err('target.at', `${atName} must lie after the rail start (${m.rail.from.trim()}) — got ${t.at.trim()}`);
 	let target: TargetMode | null = null;
 	const before = n0();
 	const wSpec = (label: string) => L(label, { min_si: undefined, above_si: 0, max_si: 0.1 });
@@ -218,17 +277,75 @@ export function compileMatchSection(raw: unknown, source: SourceSpec, doc?: Setu
 		const r1 = radiusText(t.r1, 'Mirror 1 radius', 'target.r1', err);
 		const r2 = radiusText(t.r2, 'Mirror 2 radius', 'target.r2', err);
 		const len = q('target.length', t.length, L('Cavity length', { min_si: undefined, above_si: 0, max_si: 100 }));
+		const hasLens = t.lensF.trim() !== '' || t.lensAt.trim() !== '';
+		let lensF = NaN;
+		let lensAt = NaN;
+		if (hasLens) {
+			lensF = q('target.lensF', t.lensF, L('Intracavity lens focal length', { min_si: -1e3, max_si: 1e3 }));
+			if (Number.isFinite(lensF) && Math.abs(lensF) < 1e-3) {
+				err('target.lensF', `Intracavity lens focal length must be at least 1 mm in size (negative for a diverging lens) — got ${t.lensF.trim()}`);
+				lensF = NaN;
+			}
+			lensAt = q('target.lensAt', t.lensAt, L('Intracavity lens distance from mirror 1', { min_si: 0, max_si: 100 }));
+			if (Number.isFinite(lensAt) && Number.isFinite(len) && !(lensAt < len)) err('target.lensAt', `Intracavity lens distance from mirror 1 must be less than the cavity length (${t.length.trim()}) — got ${t.lensAt.trim()}`);
+		}
 		if (n0() === before && lamOk) {
 			const c = twoMirrorCavity(r1, r2, len, lam);
-			let halfTrace = 2 * c.g1 * c.g2 - 1;
-			try {
-				halfTrace = roundTripEigenmode(linearRoundTrip(r1, r2, [{ kind: 'space', length_m: len }]), lam).x.halfTrace;
-			} catch {
-				// keep the closed form 2·g1·g2 − 1
+			if (!hasLens) {
+				let halfTrace = 2 * c.g1 * c.g2 - 1;
+				try {
+					halfTrace = roundTripEigenmode(linearRoundTrip(r1, r2, [{ kind: 'space', length_m: len }]), lam).x.halfTrace;
+				} catch {
+					// keep the closed form 2·g1·g2 − 1
+				}
+				out.cavity = { ...c, g1g2: c.g1 * c.g2, halfTrace, lens: null };
+				if (!c.stable) err('target.cavity', `The cavity has no stable mode to match: g1·g2 = ${(c.g1 * c.g2).toPrecision(4)} (must lie between 0 and 1), (A+D)/2 = ${halfTrace.toPrecision(4)} (must lie between −1 and 1). Change R1, R2 or the length.`);
+				else if (Number.isFinite(at)) target = cavityTarget(r1, r2, len, at, lam);
+			} else {
+				const oneWay: RoundTripPart[] = [{ kind: 'space', length_m: lensAt }, { kind: 'element', spec: { kind: 'thinLens', f_m: lensF } }, { kind: 'space', length_m: len - lensAt }];
+				const parts = linearRoundTrip(r1, r2, oneWay);
+				const mode = roundTripEigenmode(parts, lam);
+				const ax = mode.x;
+				const halfTrace = ax.halfTrace;
+				const g1g2 = (1 + halfTrace) / 2;
+				let w0: number | null = null;
+				let waistAt: number | null = null;
+				let wM2: number | null = null;
+				if (ax.stable && ax.q) {
+					const along = eigenmodeAlong(parts, ax.q, lam, 'x');
+					// Parts 0 and 2 are the way from mirror 1 to mirror 2 (before and after the lens).
+					const a = along.find((p) => p.part === 0);
+					const b = along.find((p) => p.part === 2);
+					if (a?.waist) [w0, waistAt] = [a.waist.w0_m, a.waist.fromStart_m];
+					else if (b?.waist) [w0, waistAt] = [b.waist.w0_m, lensAt + b.waist.fromStart_m];
+					wM2 = b ? b.wEnd_m : null;
+				}
+				const stable = ax.stable && ax.q !== null;
+				out.cavity = {
+					...c,
+					stable,
+					reason: stable ? null : 'unstable: with the lens, (A+D)/2 of the round trip must lie between −1 and 1',
+					g1g2,
+					halfTrace,
+					w0_m: w0,
+					waistFromMirror1_m: waistAt,
+					wMirror1_m: stable ? ax.w_m : null,
+					wMirror2_m: wM2,
+					zR_m: w0 === null ? null : (Math.PI * w0 * w0) / lam,
+					lens: { f_m: lensF, fromMirror1_m: lensAt }
+				};
+				if (!stable) err('target.cavity', `The cavity with its lens has no stable mode to match: (A+D)/2 = ${halfTrace.toPrecision(4)} (must lie between −1 and 1). Change R1, R2, the length or the lens.`);
+				else if (Number.isFinite(at)) target = roundTripTarget(mode, at);
 			}
-			out.cavity = { ...c, g1g2: c.g1 * c.g2, halfTrace };
-			if (!c.stable) err('target.cavity', `The cavity has no stable mode to match: g1·g2 = ${(c.g1 * c.g2).toPrecision(4)} (must lie between 0 and 1), (A+D)/2 = ${halfTrace.toPrecision(4)} (must lie between −1 and 1). Change R1, R2 or the length.`);
-			else if (Number.isFinite(at)) target = cavityTarget(r1, r2, len, at, lam);
+		}
+	} else if (t.kind === 'ring') {
+		const r = compileRing(t.ring, lam, lamOk, err);
+		if (r) {
+			out.ring = r.readout;
+			if (!r.readout.stable) {
+				const bad = (['x', 'y'] as const).filter((a) => !r.readout[a].stable).map((a) => `${a === 'x' ? 'x tangential' : 'y sagittal'} (A+D)/2 = ${r.readout[a].halfTrace.toPrecision(4)}`);
+				err('target.ring', `The ${t.ring.type === 'ring' ? 'ring' : 'folded'} cavity has no stable mode to match: ${bad.join(', ')} (must lie between −1 and 1). Change the mirror radii, angles or arm lengths.`);
+			} else if (n0() === before && Number.isFinite(at)) target = roundTripTarget(r.mode, at);
 		}
 	} else {
 		let mfd = NaN;
@@ -328,6 +445,79 @@ export function compileMatchSection(raw: unknown, source: SourceSpec, doc?: Setu
 	return out;
 }
 
+const MAX_ANGLE_DEG = 80;
+
+/**
+ * Compile a ring or folded cavity (errors keyed "target.ring.mirrors.<i>.<r|angle|arm>"): its round trip
+ * from the input mirror, the eigenmode per axis and the read-out; null while a field needs fixing.
+ */
+function compileRing(ring: RingSection, lam: number, lamOk: boolean, err: (p: string, m: string) => void): { mode: RoundTripEigenmode; readout: RingReadout } | null {
+	const n = ring.mirrors.length;
+	const folded = ring.type === 'folded';
+	const min = folded ? 2 : 3;
+	let ok = true;
+	const fail = (p: string, m: string) => {
+		ok = false;
+		err(p, m);
+	};
+	if (n < min || n > 8) fail('target.ring', `A ${folded ? 'folded' : 'ring'} cavity needs ${min} to 8 mirrors — got ${n}`);
+	const nArms = folded ? n - 1 : n;
+	if (!(ring.input < nArms)) fail('target.ring.input', `Input mirror must be one of mirrors 1 to ${nArms}${folded ? ' (not the last end mirror)' : ''} — got ${ring.input + 1}`);
+	const mirrors = ring.mirrors.map((mm, i) => {
+		const name = `Mirror ${i + 1}`;
+		const r = radiusText(mm.r, `${name} radius`, `target.ring.mirrors.${i}.r`, fail);
+		const end = folded && (i === 0 || i === n - 1);
+		let angle = 0;
+		if (!end) {
+			const a = parseQuantity(mm.angle, { label: `${name} angle of incidence`, kind: 'angle', min_si: 0, defaultUnit: '°' });
+			if (!a.ok) {
+				if (a.pending) ok = false;
+				else fail(`target.ring.mirrors.${i}.angle`, a.message);
+				angle = NaN;
+			} else if (!(a.value_si < (MAX_ANGLE_DEG * Math.PI) / 180)) {
+				fail(`target.ring.mirrors.${i}.angle`, `${name} angle of incidence must be ≥ 0° and < ${MAX_ANGLE_DEG}° — got ${mm.angle.trim()}`);
+				angle = NaN;
+			} else angle = a.value_si;
+		}
+		return { r_m: r, angle_rad: angle };
+	});
+	const arms = ring.mirrors.slice(0, nArms).map((mm, i) => {
+		const to = (i + 1) % n;
+		const a = parseQuantity(mm.arm, L(`Arm ${i + 1} → ${to + 1} length`, { min_si: undefined, above_si: 0, max_si: 100 }));
+		if (!a.ok) {
+			if (a.pending) ok = false;
+			else fail(`target.ring.mirrors.${i}.arm`, a.message);
+			return NaN;
+		}
+		return a.value_si;
+	});
+	if (!ok || !lamOk || mirrors.some((m) => !Number.isFinite(m.angle_rad) || Number.isNaN(m.r_m)) || arms.some((a) => !Number.isFinite(a))) return null;
+	const { parts, places } = mirrorRoundTrip(ring.type, mirrors, arms, ring.input);
+	const mode = roundTripEigenmode(parts, lam);
+	const axis = (a: 'x' | 'y') => {
+		const m = mode[a];
+		const waists: RingAxisReadout['waists'] = [];
+		if (m.stable && m.q) {
+			for (const pw of eigenmodeAlong(parts, m.q, lam, a)) {
+				const place = places[pw.part];
+				if (place && place.forward && pw.waist) waists.push({ arm: place.arm, fromMirror_m: pw.waist.fromStart_m, w0_m: pw.waist.w0_m });
+			}
+			waists.sort((p, q) => p.arm - q.arm || p.fromMirror_m - q.fromMirror_m);
+		}
+		return { halfTrace: m.halfTrace, stable: m.stable, wInput_m: m.stable ? m.w_m : null, waists };
+	};
+	const readout: RingReadout = {
+		type: ring.type,
+		x: axis('x'),
+		y: axis('y'),
+		stable: mode.stable,
+		roundTrip_m: arms.reduce((s, a) => s + a, 0) * (folded ? 2 : 1),
+		input: ring.input,
+		arms: arms.map((_a, i) => [i + 1, ((i + 1) % n) + 1])
+	};
+	return { mode, readout };
+}
+
 /**
  * The bench's beam at z (the rail start), lenses from an earlier Match apply left out, as the search's
  * input: the free-space q̂ referred back to z = 0 (valid from z on, where the rail begins).
@@ -347,7 +537,7 @@ export function compileMatchDoc(doc: SetupDoc): CompiledMatch {
 	const errs: FieldError[] = [];
 	const source = compileSource(doc, errs);
 	if (errs.length) {
-		const out: CompiledMatch = { problem: null, fieldErrors: { 'input.from': `The bench source needs fixing first: ${errs[0].message}` }, errors: [], cavity: null, fiber: null, target: null, input: null, ignored: [], rail: null, inventory: null, inputBeam: null };
+		const out: CompiledMatch = { problem: null, fieldErrors: { 'input.from': `The bench source needs fixing first: ${errs[0].message}` }, errors: [], cavity: null, ring: null, fiber: null, target: null, input: null, ignored: [], rail: null, inventory: null, inputBeam: null };
 		out.errors.push(out.fieldErrors['input.from']);
 		return out;
 	}

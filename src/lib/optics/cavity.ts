@@ -162,3 +162,105 @@ export function linearRoundTrip(r1_m: number, r2_m: number, oneWay: RoundTripPar
 	const mirror = (r: number): RoundTripPart => ({ kind: 'element', spec: { kind: 'mirror', r_m: r, angle_rad: 0, plane: 'x' } });
 	return [...oneWay, mirror(r2_m), ...back, mirror(r1_m)];
 }
+
+/** A mirror of a ring or folded cavity: radius (> 0 concave, Infinity flat) and angle of incidence. */
+export interface CavityMirror {
+	r_m: number;
+	angle_rad: number;
+}
+
+/** Where a part of a mirror round trip lies: arm i runs from mirror i to mirror i + 1 (0-based). */
+export interface RoundTripPlace {
+	arm: number;
+	/** true on the way from mirror i to mirror i + 1; a folded cavity also meets each arm backwards. */
+	forward: boolean;
+}
+
+/**
+ * Round trip of a cavity of mirrors joined by straight arms, starting just after mirror `startArm`,
+ * along arm `startArm` (the arm from that mirror to the next). All mirrors fold the beam in one plane,
+ * whose tangential axis is x (a planar ring or fold; Kogelnik, Ippen, Dienes & Shank 1972, eq. 1 for the
+ * per-axis focal lengths of each tilted mirror).
+ * - 'ring': arms_m[i] joins mirror i to mirror (i + 1) mod n; the beam goes once around (n ≥ 2 arms).
+ * - 'folded' (standing wave): arms_m[i] joins mirror i to mirror i + 1 (n − 1 arms); mirrors 0 and n − 1
+ *   are the end mirrors (normal incidence), the beam goes there and back. `startArm` must be < n − 1.
+ * Returns the parts with, for each space part, the arm it crosses (null for mirror parts).
+ */
+export function mirrorRoundTrip(kind: 'ring' | 'folded', mirrors: CavityMirror[], arms_m: number[], startArm: number): { parts: RoundTripPart[]; places: (RoundTripPlace | null)[] } {
+	const n = mirrors.length;
+	requireThat(n >= 2, 'cavity', 'at least 2 mirrors', n);
+	const nArms = kind === 'ring' ? n : n - 1;
+	requireThat(arms_m.length === nArms, 'arm lengths', `${nArms} values for ${n} mirrors (${kind})`, arms_m.length);
+	arms_m.forEach((a, i) => requireThat(Number.isFinite(a) && a > 0, `arm ${i + 1} length`, '> 0 m', a, 'm'));
+	mirrors.forEach((m, i) => {
+		requireThat(m.r_m !== 0 && !Number.isNaN(m.r_m), `mirror ${i + 1} radius`, 'non-zero (Infinity for flat)', m.r_m, 'm');
+		requireThat(m.angle_rad >= 0 && m.angle_rad < Math.PI / 2, `mirror ${i + 1} angle of incidence`, '≥ 0° and < 90°', m.angle_rad, 'rad');
+	});
+	requireThat(Number.isInteger(startArm) && startArm >= 0 && startArm < nArms, 'start arm', `a whole number from 0 to ${nArms - 1}`, startArm);
+	const mirror = (i: number): RoundTripPart => ({ kind: 'element', spec: { kind: 'mirror', r_m: mirrors[i].r_m, angle_rad: mirrors[i].angle_rad, plane: 'x' } });
+	const space = (i: number): RoundTripPart => ({ kind: 'space', length_m: arms_m[i] });
+	// The whole cycle from just after mirror 0, then rotated to start at the forward pass of startArm.
+	const parts: RoundTripPart[] = [];
+	const places: (RoundTripPlace | null)[] = [];
+	if (kind === 'ring') {
+		for (let i = 0; i < n; i++) {
+			parts.push(space(i), mirror((i + 1) % n));
+			places.push({ arm: i, forward: true }, null);
+		}
+	} else {
+		for (let i = 0; i < n - 1; i++) {
+			parts.push(space(i), mirror(i + 1));
+			places.push({ arm: i, forward: true }, null);
+		}
+		for (let i = n - 2; i >= 0; i--) {
+			parts.push(space(i), mirror(i));
+			places.push({ arm: i, forward: false }, null);
+		}
+	}
+	const k = places.findIndex((p) => p !== null && p.arm === startArm && p.forward);
+	return { parts: [...parts.slice(k), ...parts.slice(0, k)], places: [...places.slice(k), ...places.slice(0, k)] };
+}
+
+/** The eigenmode's waist inside one space part of the round trip, per axis (null: no waist inside). */
+export interface PartWaist {
+	/** Index of the space part in the round trip. */
+	part: number;
+	/** Beam radius at the start and the end of the part. */
+	wStart_m: number;
+	wEnd_m: number;
+	waist: { w0_m: number; fromStart_m: number } | null;
+}
+
+/**
+ * Follow a stable eigen q̂ of one axis through its round trip (q̂' = (A·q̂ + B)/(C·q̂ + D), the ABCD law,
+ * Kogelnik & Li 1966, eq. 30) and report, for every space part, the beam radius at both ends and the
+ * waist inside it, if any (distances physical, in the part's medium).
+ */
+export function eigenmodeAlong(parts: RoundTripPart[], q0: QHat, wavelength_m: number, axis: 'x' | 'y'): PartWaist[] {
+	requirePositive(wavelength_m, 'wavelength', 'm');
+	requireThat(Number.isFinite(q0.re) && Number.isFinite(q0.im) && q0.im > 0, 'eigen q̂', 'finite with Im > 0 (a stable mode)', `${q0.re} + ${q0.im}i`, 'm');
+	const props = { wavelength_m, m2: 1 };
+	const out: PartWaist[] = [];
+	let q = { ...q0 };
+	const apply = (m: Mat2) => {
+		const [A, B, C, D] = m;
+		const nr = A * q.re + B;
+		const ni = A * q.im;
+		const dr = C * q.re + D;
+		const di = C * q.im;
+		const den = dr * dr + di * di;
+		q = { re: (nr * dr + ni * di) / den, im: (ni * dr - nr * di) / den };
+	};
+	parts.forEach((p, i) => {
+		if (p.kind === 'space') {
+			const n = p.index ?? 1;
+			const b = beamFromQ(q, props, n);
+			const L = p.length_m;
+			apply(freeSpaceMatrix(L, n));
+			const e = beamFromQ(q, props, n);
+			const inside = b.toWaist_m >= -1e-12 * Math.max(L, 1e-3) && b.toWaist_m <= L + 1e-12 * Math.max(L, 1e-3);
+			out.push({ part: i, wStart_m: b.w_m, wEnd_m: e.w_m, waist: inside ? { w0_m: b.w0_m, fromStart_m: Math.min(Math.max(b.toWaist_m, 0), L) } : null });
+		} else apply(elementMatrices(p.spec)[axis]);
+	});
+	return out;
+}

@@ -24,7 +24,7 @@ export interface TrainElement {
 export interface TrainInput {
 	source: SourceSpec;
 	elements: TrainElement[];
-	/** Where the plot and the last segment end, m (extended to the last element's exit if shorter). */
+	/** Where the plot and the last segment end, m (when the last element ends past it: 5 % beyond that element). */
 	end_m: number;
 }
 
@@ -221,7 +221,8 @@ export function propagate(input: TrainInput): Propagation {
 			}
 		}
 	}
-	const end = Math.max(input.end_m, z);
+	// Past the requested end? Extend it a little beyond the last element so that element stays visible.
+	const end = z > input.end_m ? z + 0.05 * Math.max(z - start, 1e-3) : input.end_m;
 	if (end > z) travel(end - z, (end - z) / n, (end - z) / n, n, null);
 	if (segments.length === 0) {
 		// A train of zero length: keep one degenerate segment so lookups still work.
