@@ -58,6 +58,18 @@ const server = createServer(async (req, res) => {
 	res.end(body);
 });
 
-server.listen(port, '127.0.0.1', () => {
-	if (!quiet) console.log(`Beamwright is running at http://localhost:${port}/  (Ctrl+C to stop)`);
+// Without --port, a busy default port moves on to the next free one.
+let tryPort = port;
+server.on('error', (err) => {
+	if (err.code === 'EADDRINUSE' && portArg < 0 && tryPort < port + 20) {
+		tryPort++;
+		server.listen(tryPort, '127.0.0.1');
+	} else {
+		console.error(`cannot serve on port ${tryPort}: ${err.message}`);
+		process.exit(1);
+	}
 });
+server.on('listening', () => {
+	if (!quiet) console.log(`Beamwright is running at http://localhost:${tryPort}/  (Ctrl+C to stop)`);
+});
+server.listen(tryPort, '127.0.0.1');
