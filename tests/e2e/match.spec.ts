@@ -97,3 +97,79 @@ test('CSV import names each bad line; the demo shelf loads', async ({ page }) =>
 	await page.getByTestId('inv-demo').click();
 	await expect(page.getByTestId('inventory-table').locator('tbody tr')).toHaveCount(16);
 });
+
+test('Cancel stops a slow three-lens search; the page says so and stays usable', async ({ page }) => {
+	// 30 invented lenses, two of each, three lenses per solution: far more combinations than a click needs.
+	const rows = ['lens,f_mm,dia_mm,qty'];
+	for (let i = 0; i < 30; i++) rows.push(`slow shelf ${i + 1},${(i % 5 === 0 ? -1 : 1) * (40 + 10 * i)},25.4,2`);
+	await page.getByText('Import a lens list (CSV)').click();
+	await page.getByTestId('inv-csv').fill(rows.join('\n'));
+	await page.getByTestId('inv-import').click();
+	await expect(page.getByTestId('inventory-table').locator('tbody tr')).toHaveCount(30);
+	await page.getByTestId('count-3').check();
+
+	await page.getByTestId('match-run').click();
+	const progress = page.getByTestId('match-progress');
+	await expect(progress).toContainText('Searching:');
+	await expect(page.getByTestId('match-cancel')).toBeEnabled();
+	await page.getByTestId('match-cancel').click();
+	await expect(progress).toContainText(/Cancelled after \d+ of \d+ combinations/, { timeout: 10_000 });
+	await expect(page.getByTestId('match-cancel')).toBeDisabled();
+	await expect(page.getByTestId('match-run')).toBeEnabled();
+	await expectNoBrokenNumbers(page);
+
+	// Still usable: a smaller search runs to the end.
+	await page.getByTestId('count-3').uncheck();
+	await page.getByTestId('count-2').uncheck();
+	await page.getByTestId('match-run').click();
+	await expect(progress).toContainText(/Done: (\d+) of \1 lens combinations/, { timeout: 30_000 });
+	await expectNoBrokenNumbers(page);
+});
+
+test('a ring cavity target computes per axis; an unstable ring is reported and blocks the search', async ({ page }) => {
+	await page.getByTestId('target-ring').check();
+	await expect(page.getByTestId('ring-mirrors').locator('tbody tr')).toHaveCount(4);
+	await expect(page.getByTestId('ring-verdict')).toContainText('Stable on both axes');
+	await expect(page.getByTestId('ring-axis-x')).toContainText('✓ stable');
+	await expect(page.getByTestId('ring-axis-y')).toContainText('✓ stable');
+	await expect(page.getByTestId('ring-axis-x')).toContainText(/µm at .* after M3/);
+	await expect(page.getByTestId('target-readout')).toBeVisible();
+	await page.getByTestId('match-run').click();
+	await expect(page.getByTestId('match-progress')).toContainText(/Done/, { timeout: 30_000 });
+	await expect(page.getByTestId('match-row').first()).toBeVisible();
+	await expectNoBrokenNumbers(page);
+
+	// 15° on every mirror and a 100 mm short arm: between R·cosθ and R/cosθ only x (tangential) is stable.
+	for (let i = 0; i < 4; i++) await page.getByTestId(`ring-angle-${i}`).fill('15°');
+	await page.getByTestId('ring-arm-2').fill('100 mm');
+	await expect(page.getByTestId('ring-verdict')).toContainText('Unstable');
+	await expect(page.getByTestId('ring-verdict')).toContainText('y (sagittal)');
+	await expect(page.getByTestId('ring-axis-x')).toContainText('✓ stable');
+	await expect(page.getByTestId('ring-axis-y')).toContainText('✗ unstable');
+	await expect(page.getByTestId('match-run')).toBeDisabled();
+	await expect(page.getByTestId('match-blocked')).toContainText('no stable mode');
+	await expect(page.getByTestId('match-stale')).toBeVisible();
+	await expectNoBrokenNumbers(page);
+
+	// A typing slip names the mirror.
+	await page.getByTestId('ring-angle-1').fill('95°');
+	await expect(page.getByText(/Mirror 2 angle of incidence must be ≥ 0° and < 80°/).first()).toBeVisible();
+});
+
+test('two-mirror cavity with a lens inside; expander read-outs for both axes of an astigmatic beam', async ({ page }) => {
+	await page.getByTestId('target-cavity').check();
+	await page.getByTestId('target-lens-f').fill('1 m');
+	await page.getByTestId('target-lens-at').fill('100 mm');
+	// Flat / 500 mm, L = 250 mm, f = 1 m at 100 mm: equivalent g1·g2 = 0.85 × 0.43 (Kogelnik 1965, from memory).
+	await expect(page.getByTestId('cavity-readout')).toContainText('Stable');
+	await expect(page.getByTestId('cavity-g1g2')).toHaveText('0.3655');
+	await page.getByTestId('target-lens-f').fill('50 mm');
+	await expect(page.getByTestId('cavity-readout')).toContainText('Unstable');
+	await expect(page.getByTestId('match-run')).toBeDisabled();
+	await expectNoBrokenNumbers(page);
+
+	// The example source is astigmatic (x and y waists differ): every expander row gives ○ x and □ y.
+	const row = page.getByTestId('expander-row').first();
+	await expect(row).toContainText('○');
+	await expect(row.getByTestId('expander-y').first()).toContainText(/□ \d/);
+});

@@ -334,7 +334,7 @@ export function compileMatchSection(raw: unknown, source: SourceSpec, doc?: Setu
 					zR_m: w0 === null ? null : (Math.PI * w0 * w0) / lam,
 					lens: { f_m: lensF, fromMirror1_m: lensAt }
 				};
-				if (!stable) err('target.cavity', `The cavity with its lens has no stable mode to match: (A+D)/2 = ${halfTrace.toPrecision(4)} (must lie between −1 and 1). Change R1, R2, the length or the lens.`);
+				if (!stable) err('target.cavity', `The cavity with its lens has no stable mode to match: (A+D)/2 = ${halfTrace.toPrecision(4).replace('-', '−')} (must lie between −1 and 1). Change R1, R2, the length or the lens.`);
 				else if (Number.isFinite(at)) target = roundTripTarget(mode, at);
 			}
 		}
@@ -343,7 +343,7 @@ export function compileMatchSection(raw: unknown, source: SourceSpec, doc?: Setu
 		if (r) {
 			out.ring = r.readout;
 			if (!r.readout.stable) {
-				const bad = (['x', 'y'] as const).filter((a) => !r.readout[a].stable).map((a) => `${a === 'x' ? 'x tangential' : 'y sagittal'} (A+D)/2 = ${r.readout[a].halfTrace.toPrecision(4)}`);
+				const bad = (['x', 'y'] as const).filter((a) => !r.readout[a].stable).map((a) => `${a === 'x' ? 'x tangential' : 'y sagittal'} (A+D)/2 = ${r.readout[a].halfTrace.toPrecision(4).replace('-', '−')}`);
 				err('target.ring', `The ${t.ring.type === 'ring' ? 'ring' : 'folded'} cavity has no stable mode to match: ${bad.join(', ')} (must lie between −1 and 1). Change the mirror radii, angles or arm lengths.`);
 			} else if (n0() === before && Number.isFinite(at)) target = roundTripTarget(r.mode, at);
 		}
