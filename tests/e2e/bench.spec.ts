@@ -132,3 +132,28 @@ test('export then import round-trips the setup', async ({ page }) => {
 	await page.getByTestId('import-input').setInputFiles(file);
 	await expect(page.getByTestId('src-wavelength')).toHaveValue('633 nm');
 });
+
+test('a copied link carries the setup to another browser, which opens it only when asked', async ({ page, browser }) => {
+	await page.getByTestId('src-wavelength').fill('780 nm');
+	await page.getByTestId('share').click();
+	const link = await page.getByTestId('share-link').inputValue();
+	expect(link).toContain('#setup=');
+
+	const other = await browser.newPage();
+	await other.goto(link);
+	await expect(other.getByTestId('shared-offer')).toContainText('Larkspur');
+	// Not applied until the user says so.
+	await expect(other.getByTestId('src-wavelength')).toHaveValue('1064 nm');
+	await other.getByTestId('shared-open').click();
+	await expect(other.getByTestId('src-wavelength')).toHaveValue('780 nm');
+	expect(new URL(other.url()).hash).toBe('');
+	await other.close();
+});
+
+test('a damaged link is refused and the current setup stays', async ({ page }) => {
+	await page.getByTestId('src-wavelength').fill('633 nm');
+	await page.waitForTimeout(300);
+	await page.goto('/#setup=AAAA-broken');
+	await expect(page.getByTestId('shared-offer')).toContainText('cannot be opened');
+	await expect(page.getByTestId('src-wavelength')).toHaveValue('633 nm');
+});
