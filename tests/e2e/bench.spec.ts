@@ -157,3 +157,46 @@ test('a damaged link is refused and the current setup stays', async ({ page }) =
 	await expect(page.getByTestId('shared-offer')).toContainText('cannot be opened');
 	await expect(page.getByTestId('src-wavelength')).toHaveValue('633 nm');
 });
+
+test('every numeric field of every element kind and source form refuses bad input with a message', async ({ page }) => {
+	await page.getByRole('button', { name: 'New' }).click();
+	const bad = ['', 'abc', '5 kg', '1e400 m', 'NaN'];
+	async function tryAll(prefix: string) {
+		const inputs = page.locator(`[data-testid^="${prefix}"]`);
+		const n = await inputs.count();
+		expect(n, `fields for ${prefix}`).toBeGreaterThan(0);
+		for (let k = 0; k < n; k++) {
+			const input = inputs.nth(k);
+			if ((await input.evaluate((el) => (el as HTMLInputElement).type)) !== 'text') continue;
+			const id = await input.getAttribute('data-testid');
+			const original = await input.inputValue();
+			for (const b of bad) {
+				// A blank clear aperture means "no aperture": the one blank that is valid.
+				if (b === '' && id?.endsWith('-aperture')) continue;
+				await input.fill(b);
+				expect(await input.getAttribute('aria-invalid'), `${id} = "${b}"`).toBe('true');
+				const msgId = await input.getAttribute('aria-describedby');
+				await expect(page.locator(`#${msgId}`)).toContainText(/\w/);
+				await expect(input).toHaveValue(b);
+			}
+			await input.fill(original);
+			await expect(input).toHaveAttribute('aria-invalid', 'false');
+		}
+	}
+	// Source, in each of its three forms.
+	for (const form of ['waist', 'divergence', 'twoDiameters']) {
+		await page.getByTestId('src-x-kind').selectOption(form);
+		await tryAll('src-');
+	}
+	// Every element kind.
+	const kinds = await page.getByTestId('add-kind').locator('option').evaluateAll((os) => os.map((o) => (o as HTMLOptionElement).value));
+	for (const kind of kinds) {
+		await page.getByTestId('add-kind').selectOption(kind);
+		await page.getByTestId('add-element').click();
+		const label = (await page.locator('li.el.selected strong').innerText()).trim();
+		await tryAll(`el-${label}-`);
+	}
+	await expect(page.getByTestId('setup-error')).toHaveCount(0);
+	const text = (await page.locator('main').innerText()).replace(/"[^"]*"/g, '');
+	expect(text).not.toMatch(/\bNaN\b|\bundefined\b|Infinity/);
+});
