@@ -1,7 +1,6 @@
-import { readFile } from 'node:fs/promises';
 import { allowOnly, CliInputError, optChoice, parseArgs } from '../args';
 import { compileSource, type FieldError } from '../../lib/document/compile';
-import { parseSetupJson } from '../../lib/document/schema';
+import { readSetupFile } from '../setupFile';
 import { searchMatches } from '../../lib/optics/solve';
 import { compileMatch } from '../../lib/document/match';
 
@@ -12,20 +11,12 @@ export async function run(argv: string[]) {
 	const args = parseArgs(argv);
 	allowOnly(args, ['rank', 'top']);
 	const file = args.positionals[0];
-	if (!file) throw new CliInputError('setup: a setup JSON file is required — e.g. npx beamwright match setup.json');
-	let text: string;
-	try {
-		text = await readFile(file, 'utf8');
-	} catch {
-		throw new CliInputError(`setup: cannot read "${file}"`);
-	}
-	const parsed = parseSetupJson(text);
-	if (!parsed.ok) throw new CliInputError(`setup: ${file} is refused — ${parsed.reason}`);
-	if (!parsed.doc.match) throw new CliInputError(`setup: ${file} has no "match" section (target, inventory, rail)`);
+	const doc = await readSetupFile(file, 'match');
+	if (!doc.match) throw new CliInputError(`setup: ${file} has no "match" section (target, inventory, rail)`);
 	const errs: FieldError[] = [];
-	const source = compileSource(parsed.doc, errs);
+	const source = compileSource(doc, errs);
 	if (errs.length) throw new CliInputError(`setup: ${errs[0].path}: ${errs[0].message}`);
-	const c = compileMatch(parsed.doc.match, source);
+	const c = compileMatch(doc.match, source);
 	if (!c.ok) throw new CliInputError(`setup: ${c.errors[0]}`);
 	const rank = optChoice(args, 'rank', ['robust', 'efficiency', 'tolerance', 'length'] as const, (c.problem.rankBy ?? 'robust') as 'robust');
 	const topText = args.options.get('top');

@@ -1,7 +1,6 @@
-import { readFile } from 'node:fs/promises';
 import { allowOnly, CliInputError, parseArgs } from '../args';
+import { readSetupFile } from '../setupFile';
 import { compileSetup } from '../../lib/document/compile';
-import { parseSetupJson } from '../../lib/document/schema';
 import { propagate } from '../../lib/optics/train';
 import type { BeamAt } from '../../lib/optics/beam';
 
@@ -18,21 +17,12 @@ const beamJson = (b: BeamAt) => ({
 export async function run(argv: string[]) {
 	const args = parseArgs(argv);
 	allowOnly(args, []);
-	const file = args.positionals[0];
-	if (!file) throw new CliInputError('setup: a setup JSON file is required — e.g. npx beamwright propagate setup.json');
-	let text: string;
-	try {
-		text = await readFile(file, 'utf8');
-	} catch {
-		throw new CliInputError(`setup: cannot read "${file}"`);
-	}
-	const parsed = parseSetupJson(text);
-	if (!parsed.ok) throw new CliInputError(`setup: ${file} is refused — ${parsed.reason}`);
-	const compiled = compileSetup(parsed.doc);
+	const doc = await readSetupFile(args.positionals[0], 'propagate');
+	const compiled = compileSetup(doc);
 	if (!compiled.ok) throw new CliInputError(`setup: ${compiled.errors[0].path}: ${compiled.errors[0].message}${compiled.errors.length > 1 ? ` (and ${compiled.errors.length - 1} more)` : ''}`);
 	const p = propagate(compiled.input);
 	return {
-		name: parsed.doc.name,
+		name: doc.name,
 		wavelength_m: p.wavelength_m,
 		m2: { x: p.m2x, y: p.m2y },
 		elements: p.elements.map((e) => ({
