@@ -112,6 +112,25 @@ export function defaultMatchSection(): MatchSection {
 	};
 }
 
+/**
+ * An empty section for a new setup: no target values, no lenses on the shelf, no keep-out zones, no
+ * lens ranges — nothing from the example constrains a search unseen.
+ */
+export function emptyMatchSection(): MatchSection {
+	return {
+		input: { from: 'source' },
+		target: { kind: 'waist', at: '', wx: '', wy: '', r1: '', r2: '', length: '', lensF: '', lensAt: '', ring: { type: 'ring', mirrors: [], input: 0 }, fiberBy: 'mfd', mfd: '', coreRadius: '', na: '' },
+		inventory: [],
+		rail: { from: '', to: '' },
+		slots: [],
+		keepOut: [],
+		minSpacing: '0 mm',
+		lensCounts: [1, 2],
+		rankBy: 'robust',
+		expander: { magMin: '', magMax: '', lens1At: '', waistAfter: '' }
+	};
+}
+
 /** Read the stored section (filling defaults for optional parts). A section that does not fit says why. */
 export function readMatchSection(raw: unknown): { section: MatchSection; problem: string | null } {
 	if (raw === undefined || raw === null) return { section: defaultMatchSection(), problem: null };
