@@ -17,6 +17,7 @@ import {
 	type WidthsResult
 } from '$lib/optics/iso11146/index';
 import type { SetupStore } from '$lib/document/store.svelte';
+import { repairSection } from '$lib/document/repair';
 
 /** Length units offered for z and diameters, metres per unit. */
 export const lengthUnits = [
@@ -79,9 +80,9 @@ export class MeasureState {
 	read = $derived.by((): { doc: MeasureDoc; problem: string | null } => {
 		const raw = this.#store.doc.measure;
 		if (raw === undefined) return { doc: defaultMeasure(), problem: null };
-		const r = v.safeParse(MeasureSchema, { ...defaultMeasure(), ...raw });
-		if (r.success) return { doc: r.output, problem: null };
-		return { doc: defaultMeasure(), problem: `The saved Measure inputs could not be read (${r.issues[0].message}); defaults are shown.` };
+		// Field by field: one unreadable field is reset (its text kept under `unreadable`), the rest stays.
+		const r = repairSection(MeasureSchema as never, { ...defaultMeasure(), ...raw }, defaultMeasure(), 'Measure inputs');
+		return { doc: r.section as MeasureDoc, problem: r.problem };
 	});
 	get doc(): MeasureDoc {
 		return this.read.doc;
