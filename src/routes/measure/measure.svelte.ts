@@ -164,8 +164,13 @@ export class MeasureState {
 				out.push({ name, z_m: z, d_m: d, residual_m: [], fitZ_m: new Float64Array(0), fitD_m: new Float64Array(0), fit: null });
 				continue;
 			}
-			const lo = Math.min(...z, f.z0_m);
-			const hi = Math.max(...z, f.z0_m);
+			// Loops, not Math.min(...z): spreading ~10⁵ planes overflows the call stack.
+			let lo = f.z0_m;
+			let hi = f.z0_m;
+			for (const zi of z) {
+				if (zi < lo) lo = zi;
+				if (zi > hi) hi = zi;
+			}
 			const pad = 0.04 * (hi - lo || 1e-3);
 			const s = sampleCaustic(f, lo - pad, hi + pad, 240);
 			out.push({ name, z_m: z, d_m: d, residual_m: f.residuals.map((q) => q.residual_m), fitZ_m: s.z_m, fitD_m: s.d_m, fit: f });
