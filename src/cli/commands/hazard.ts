@@ -32,7 +32,7 @@ async function inventory(path: string, argv: ReturnType<typeof parseArgs>) {
 		throw new CliInputError(`--inventory: cannot read "${path}" — ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`);
 	}
 	const table = assessInventory(text, standard);
-	if (table.rows.length === 0) {
+	if (table.refused || table.rows.length === 0) {
 		const first = table.issues[0];
 		throw new CliInputError(`--inventory: no laser could be read from "${path}"${first ? ` — line ${first.line}: ${first.message}` : ''}`);
 	}

@@ -22,6 +22,7 @@ import type { MatchProblem, RankBy } from '../optics/solve/search';
 import type { InputBeam, Interval, StockLens, TargetMode } from '../optics/solve/types';
 import { compileSetup, compileSource, type FieldError } from './compile';
 import type { SetupDoc } from './schema';
+import { repairSection } from './repair';
 
 /** Element ids of lenses that the Match workspace put on the bench start with this. */
 export const MATCH_ID_PREFIX = 'match-';
@@ -131,12 +132,13 @@ export function emptyMatchSection(): MatchSection {
 	};
 }
 
-/** Read the stored section (filling defaults for optional parts). A section that does not fit says why. */
+/**
+ * Read the stored section (filling defaults for optional parts), repairing field by field: a field
+ * that cannot be read is reset, its old text kept under `unreadable`, and `problem` names it.
+ */
 export function readMatchSection(raw: unknown): { section: MatchSection; problem: string | null } {
-	if (raw === undefined || raw === null) return { section: defaultMatchSection(), problem: null };
-	const r = v.safeParse(MatchSectionSchema, raw);
-	if (r.success) return { section: r.output, problem: null };
-	return { section: defaultMatchSection(), problem: `match.${v.getDotPath(r.issues[0]) ?? ''}: ${r.issues[0].message}` };
+	const r = repairSection(MatchSectionSchema as never, raw, defaultMatchSection(), 'match settings');
+	return { section: r.section as MatchSection, problem: r.problem };
 }
 
 /** Millimetre text with up to 6 significant digits: 0.1234 → "123.4 mm". */
@@ -251,12 +253,11 @@ export function compileMatchSection(raw: unknown, source: SourceSpec, doc?: Setu
 		if (!(path in out.fieldErrors)) out.fieldErrors[path] = message;
 		out.errors.push(message);
 	};
-	const parsed = v.safeParse(MatchSectionSchema, raw);
-	if (!parsed.success) {
-		err('', `match.${v.getDotPath(parsed.issues[0]) ?? ''}: ${parsed.issues[0].message}`);
-		return out;
-	}
-	const m = parsed.output;
+	// Field by field: a field that cannot be read is named (at its path) and blocks the search until
+	// the user edits it; the rest of the section is read as stored.
+	const repaired = repairSection(MatchSectionSchema as never, raw, defaultMatchSection(), 'match settings');
+	for (const r of repaired.resets) err(r.path.replace(/^\(whole section\)$/, ''), `match.${r.path}: the stored value ${r.text.length > 40 ? r.text.slice(0, 40) + '…' : r.text} could not be read — it is reset to the default at your next change`);
+	const m = repaired.section as MatchSection;
 	const n0 = () => out.errors.length;
 	const q = (path: string, t: string, spec: FieldSpec) => {
 		const r = parseQuantity(t, spec);

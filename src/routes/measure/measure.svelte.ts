@@ -17,6 +17,7 @@ import {
 	type WidthsResult
 } from '$lib/optics/iso11146/index';
 import type { SetupStore } from '$lib/document/store.svelte';
+import { repairSection } from '$lib/document/repair';
 
 /** Length units offered for z and diameters, metres per unit. */
 export const lengthUnits = [
@@ -83,9 +84,9 @@ export class MeasureState {
 		if (raw === undefined) return { doc: defaultMeasure(), problem: null };
 		// A section saved before the wavelength could follow the bench keeps the wavelength it typed.
 		const from = (raw as Record<string, unknown>).wavelengthFrom ?? ((raw as Record<string, unknown>).wavelength ? 'typed' : 'bench');
-		const r = v.safeParse(MeasureSchema, { ...defaultMeasure(), ...raw, wavelengthFrom: from });
-		if (r.success) return { doc: r.output, problem: null };
-		return { doc: defaultMeasure(), problem: `The saved Measure inputs could not be read (${r.issues[0].message}); defaults are shown.` };
+		// Field by field: one unreadable field is reset (its text kept under `unreadable`), the rest stays.
+		const r = repairSection(MeasureSchema as never, { ...defaultMeasure(), ...raw, wavelengthFrom: from }, defaultMeasure(), 'Measure inputs');
+		return { doc: r.section as MeasureDoc, problem: r.problem };
 	});
 	get doc(): MeasureDoc {
 		return this.read.doc;
@@ -199,8 +200,13 @@ export class MeasureState {
 				out.push({ name, z_m: z, d_m: d, residual_m: [], fitZ_m: new Float64Array(0), fitD_m: new Float64Array(0), fit: null });
 				continue;
 			}
-			const lo = Math.min(...z, f.z0_m);
-			const hi = Math.max(...z, f.z0_m);
+			// Loops, not Math.min(...z): spreading ~10⁵ planes overflows the call stack.
+			let lo = f.z0_m;
+			let hi = f.z0_m;
+			for (const zi of z) {
+				if (zi < lo) lo = zi;
+				if (zi > hi) hi = zi;
+			}
 			const pad = 0.04 * (hi - lo || 1e-3);
 			const s = sampleCaustic(f, lo - pad, hi + pad, 240);
 			out.push({ name, z_m: z, d_m: d, residual_m: f.residuals.map((q) => q.residual_m), fitZ_m: s.z_m, fitD_m: s.d_m, fit: f });
