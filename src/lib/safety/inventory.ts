@@ -217,7 +217,7 @@ export function assessInventory(text: string, standard: StandardChoice = 'strict
 /** Columns of the exported table (our own names; SI or the unit in the name). */
 export const exportColumns = [
 	'line', 'name', 'room', 'wavelength_nm', 'emission', 'exposure_s', 'exposure_basis', 'standard', 'limit_W_m2', 'limit_J_m2', 'limit_rule',
-	'limiting_aperture_mm', 'nohd_formula_m', 'nohd_beam_m', 'hazard_distance_m', 'od_required', 'od_whole', 'status', 'note', 'caution'
+	'limiting_aperture_mm', 'nohd_formula_m', 'nohd_beam_m', 'hazard_distance_m', 'od_required', 'od_whole', 'status', 'note', 'provenance', 'limit_source', 'caution'
 ] as const;
 
 function csvCell(v: string | number): string {
@@ -250,6 +250,8 @@ export function inventoryToCsv(table: InventoryTable): string {
 			od_whole: a ? a.odWhole : '',
 			status: r.ok ? 'ok' : `refused: ${r.message}`,
 			note: r.note,
+			provenance: a ? `${a.provenance}: ${a.provenanceLine}` : '',
+			limit_source: a ? a.limitSource : '',
 			caution: table.caution
 		};
 		lines.push(exportColumns.map((c) => csvCell(cells[c])).join(','));
