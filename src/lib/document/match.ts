@@ -319,7 +319,15 @@ export function compileMatchSection(raw: unknown, source: SourceSpec, doc?: Setu
 					// keep the closed form 2·g1·g2 − 1
 				}
 				out.cavity = { ...c, g1g2: c.g1 * c.g2, halfTrace, lens: null };
-				if (!c.stable) err('target.cavity', `The cavity has no stable mode to match: g1·g2 = ${(c.g1 * c.g2).toPrecision(4)} (must lie between 0 and 1), (A+D)/2 = ${halfTrace.toPrecision(4)} (must lie between −1 and 1). Change R1, R2 or the length.`);
+				const lim = c.limit;
+				if (c.status === 'boundary' && lim && lim.finite && lim.w0_m !== null && lim.waistFromMirror1_m !== null) {
+					// Confocal: match the limit of the symmetric cavity (reported as such on the page).
+					if (Number.isFinite(at)) {
+						const qq = { re: -lim.waistFromMirror1_m, im: (Math.PI * lim.w0_m * lim.w0_m) / lam };
+						target = { z_m: at, x: qq, y: { ...qq }, what: 'cavity' };
+					}
+				} else if (c.status === 'boundary') err('target.cavity', `The cavity has no confined mode to match: it is ${c.reason}. Change R1, R2 or the length.`);
+				else if (!c.stable) err('target.cavity', `The cavity has no stable mode to match: g1·g2 = ${(c.g1 * c.g2).toPrecision(4)} (must lie between 0 and 1), (A+D)/2 = ${halfTrace.toPrecision(4)} (must lie between −1 and 1). Change R1, R2 or the length.`);
 				else if (Number.isFinite(at)) target = cavityTarget(r1, r2, len, at, lam);
 			} else {
 				const oneWay: RoundTripPart[] = [{ kind: 'space', length_m: lensAt }, { kind: 'element', spec: { kind: 'thinLens', f_m: lensF } }, { kind: 'space', length_m: len - lensAt }];
@@ -344,7 +352,13 @@ export function compileMatchSection(raw: unknown, source: SourceSpec, doc?: Setu
 				out.cavity = {
 					...c,
 					stable,
-					reason: stable ? null : 'unstable: with the lens, (A+D)/2 of the round trip must lie between −1 and 1',
+					status: stable ? 'stable' : ax.boundary ? 'boundary' : 'unstable',
+					limit: null,
+					reason: stable
+						? null
+						: ax.boundary
+							? 'on the stability boundary: with the lens, (A+D)/2 of the round trip is ±1, where the round trip fixes no Gaussian mode'
+							: 'unstable: with the lens, (A+D)/2 of the round trip must lie between −1 and 1',
 					g1g2,
 					halfTrace,
 					w0_m: w0,
@@ -363,7 +377,7 @@ export function compileMatchSection(raw: unknown, source: SourceSpec, doc?: Setu
 		if (r) {
 			out.ring = r.readout;
 			if (!r.readout.stable) {
-				const bad = (['x', 'y'] as const).filter((a) => !r.readout[a].stable).map((a) => `${a === 'x' ? 'x tangential' : 'y sagittal'} (A+D)/2 = ${r.readout[a].halfTrace.toPrecision(4).replace('-', '−')}`);
+				const bad = (['x', 'y'] as const).filter((a) => !r.readout[a].stable).map((a) => `${a === 'x' ? 'x tangential' : 'y sagittal'} (A+D)/2 = ${r.readout[a].halfTrace.toPrecision(4).replace('-', '−')}${r.mode[a].boundary ? ' (on the stability boundary, where the round trip fixes no mode)' : ''}`);
 				err('target.ring', `The ${t.ring.type === 'ring' ? 'ring' : 'folded'} cavity has no stable mode to match: ${bad.join(', ')} (must lie between −1 and 1). Change the mirror radii, angles or arm lengths.`);
 			} else if (n0() === before && Number.isFinite(at)) target = roundTripTarget(r.mode, at);
 		}
