@@ -4,7 +4,7 @@
  * Each command lives in ./commands/<name>.ts and exports `run(args): Promise<unknown>` (the JSON result,
  * or a string to print as-is) plus a one-line `summary`.
  */
-import { CliInputError, parseArgs } from './args';
+import { CliInputError } from './args';
 import { loadUnitEngine, unitEngineReady, unitEngineWasNeeded } from '../lib/units/parse';
 
 type Command = { summary: string; usage: string; run: (argv: string[]) => Promise<unknown> };
@@ -51,7 +51,7 @@ export async function main(argv: string[], io: CliOutput = processOutput): Promi
 		return 2;
 	}
 	const cmd = await load();
-	if (parseArgs(rest).options.has('help')) {
+	if (rest.includes('--help')) {
 		io.out(`${cmd.summary}\nUsage: ${cmd.usage}\n`);
 		return 0;
 	}
