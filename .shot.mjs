@@ -1,0 +1,15 @@
+import { chromium } from '@playwright/test';
+const [,, url, out, w = '1280', theme = 'light', extra = ''] = process.argv;
+const b = await chromium.launch({ executablePath: '/usr/bin/chromium', args: ['--no-sandbox'] });
+const p = await b.newPage({ viewport: { width: +w, height: 1000 } });
+p.on('console', (m) => { if (m.type() === 'error') console.log('console:', m.text()); });
+p.on('pageerror', (e) => console.log('pageerror:', e.message));
+await p.goto(url);
+await p.evaluate((t) => { localStorage.clear(); localStorage.setItem('beamwright.theme', t); }, theme);
+await p.goto(url);
+if (theme === 'dark') await p.evaluate(() => document.documentElement.setAttribute('data-theme', 'dark'));
+await p.waitForTimeout(800);
+if (extra === 'grey') await p.addStyleTag({ content: 'html{filter:grayscale(1)}' });
+await p.screenshot({ path: out, fullPage: true });
+console.log('scrollWidth', await p.evaluate(() => document.documentElement.scrollWidth));
+await b.close();
