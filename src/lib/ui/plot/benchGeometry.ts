@@ -14,7 +14,7 @@ export function niceTicks(max: number, count = 4): number[] {
 	const m = raw / p;
 	const step = (m <= 1 ? 1 : m <= 2 ? 2 : m <= 5 ? 5 : 10) * p;
 	const out: number[] = [];
-	for (let i = 0; i * step <= max * (1 + 1e-9); i++) out.push(i * step);
+	for (let i = 0; i * step <= max * (1 + 1e-9); i++) out.push(+(i * step).toPrecision(12));
 	return out;
 }
 
@@ -27,7 +27,7 @@ export function rangeTicks(from: number, to: number, count = 8): number[] {
 	const m = raw / p;
 	const step = (m <= 1 ? 1 : m <= 2 ? 2 : m <= 5 ? 5 : 10) * p;
 	const out: number[] = [];
-	for (let v = Math.ceil(from / step - 1e-9) * step; v <= to + step * 1e-9; v += step) out.push(Math.abs(v) < step * 1e-9 ? 0 : v);
+	for (let k = Math.ceil(from / step - 1e-9); k * step <= to + step * 1e-9; k++) out.push(k === 0 ? 0 : +(k * step).toPrecision(12));
 	return out;
 }
 
@@ -98,6 +98,9 @@ export function spread(want: number[], widths: number[], gap: number, lo: number
 		if (left + shift < lo) shift = lo - left;
 		for (let j = 0; j < c.offsets.length; j++) out[c.start + j] = c.pos + c.offsets[j] + shift;
 	}
+	// A cluster pushed back inside the bounds may now touch its neighbour: settle from both ends.
+	for (let i = 0; i < n; i++) out[i] = Math.max(out[i], lo + widths[i] / 2, i ? out[i - 1] + (widths[i - 1] + widths[i]) / 2 + gap : -Infinity);
+	for (let i = n - 1; i >= 0; i--) out[i] = Math.min(out[i], hi - widths[i] / 2, i < n - 1 ? out[i + 1] - (widths[i + 1] + widths[i]) / 2 - gap : Infinity);
 	return out;
 }
 
