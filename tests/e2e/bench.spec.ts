@@ -143,7 +143,7 @@ test('a copied link carries the setup to another browser, which opens it only wh
 
 	const other = await browser.newPage();
 	await other.goto(link);
-	await expect(other.getByTestId('shared-offer')).toContainText('Larkspur');
+	await expect(other.getByTestId('shared-offer')).toContainText('Demo lab');
 	// Not applied until the user says so.
 	await expect(other.getByTestId('src-wavelength')).toHaveValue('1064 nm');
 	await other.getByTestId('shared-open').click();
