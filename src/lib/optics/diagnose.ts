@@ -72,7 +72,7 @@ function requireHeight(v: number | null | undefined, name: string, optional = fa
 /** Invert a small symmetric positive matrix (row-major, n × n) by Gauss–Jordan; null when singular. */
 function invert(m: number[], n: number): number[] | null {
 	const a = m.slice();
-	const inv = Array.from({ length: n * n }, (_, i) => (i % (n + 1) === 0 ? 1 : 0));
+	const inv: number[] = Array.from({ length: n * n }, (_, i) => (i % (n + 1) === 0 ? 1 : 0));
 	for (let c = 0; c < n; c++) {
 		let p = c;
 		for (let r = c + 1; r < n; r++) if (Math.abs(a[r * n + c]) > Math.abs(a[p * n + c])) p = r;
