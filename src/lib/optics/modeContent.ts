@@ -5,17 +5,18 @@
  *
  * Closed form, one axis. At the cavity mode's waist plane the cavity modes are
  * u_m(x) = N_m·H_m(√2·x/w)·exp(−x²/w²), N_m = (2/π)^¼/sqrt(2^m·m!·w) (Siegman, "Lasers", 1986, eq. 16.54),
- * and the injected beam is E(x) = exp(−a·(x − x0)² + i·k·θ·x) with a = 1/w_b² + i·k/(2·R_b) its Gaussian
- * coefficient at that plane, x0 its offset and θ its tilt. With the generating function of the Hermite
+ * and the injected beam is E(x) = exp(−a·(x − x0)² − i·k·θ·x) with a = 1/w_b² + i·k/(2·R_b) its Gaussian
+ * coefficient at that plane, x0 its offset and θ its tilt (fields ∝ exp(−ikz), so a beam tilted towards +x
+ * carries exp(−ikθx) and a diverging wavefront exp(−ikx²/2R); Siegman 1986, §16.4). With the generating function of the Hermite
  * polynomials Σ H_m(s)·t^m/m! = exp(2st − t²) (Abramowitz & Stegun 1964, eq. 22.9.17) the overlaps follow
  * from one Gaussian integral ∫exp(−P·x² + Q·x)dx = sqrt(π/P)·exp(Q²/4P):
  *   c_m = (2/π)^¼·w^−½·G0·d_m,  G0 = sqrt(π/P)·exp(Q0²/(4P) − a·x0²),
- *   P = 1/w² + a, Q0 = 2a·x0 + i·k·θ, α = Q0·√2/(w·P), β = 2/(w²·P) − 1,
+ *   P = 1/w² + a, Q0 = 2a·x0 − i·k·θ, α = Q0·√2/(w·P), β = 2/(w²·P) − 1,
  *   d_0 = 1, d_1 = α/√2, d_{m+1} = (α·d_m + 2β·sqrt(m/2)·d_{m−1})/sqrt(2(m + 1)),
  * and p_m = |c_m|²/∫|E|², ∫|E|² = sqrt(π/(2·Re a)). β carries the mismatch (β = 0 when the waists match in
  * size and place; |β| alone fixes the even-mode powers, p_0 = sqrt(1 − |β|²) without misalignment) and α
  * the misalignment. For matched waists α = √2·(x0/w + i·θ/θ0), θ0 = λ/(π·w), and the powers are Poisson,
- * p_m = exp(−|ε|²)·|ε|^{2m}/m! with ε = x0/w + i·θ/θ0; to first order p_1 = (x0/w)² + (θ/θ0)²
+ * p_m = exp(−|ε|²)·|ε|^{2m}/m! with ε = x0/w − i·θ/θ0; to first order p_1 = (x0/w)² + (θ/θ0)²
  * (D. Z. Anderson, "Alignment of resonant optical cavities", Appl. Opt. 23, 2944 (1984), from memory).
  * These are the misalignment-and-mismatch coupling coefficients of F. Bayer-Helms, "Coupling coefficients
  * of an incident wave and the modes of a spherical optical resonator in the case of mismatching and
@@ -57,7 +58,7 @@ const cdiv = (a: C, b: C): C => {
 };
 
 /**
- * Fractions p_m (m = 0 … maxOrder) of a Gaussian E = exp(−a(x − x0)² + ikθx) in the HG modes of waist w
+ * Fractions p_m (m = 0 … maxOrder) of a Gaussian E = exp(−a(x − x0)² − ikθx) in the HG modes of waist w
  * at the waist plane, from the closed form in this file's header. a is complex with Re a > 0.
  */
 export function hgFractions(w_m: number, a: C, x0_m: number, tilt_rad: number, k_per_m: number, maxOrder: number): { fractions: number[]; alpha: C; beta: C } {
@@ -65,7 +66,7 @@ export function hgFractions(w_m: number, a: C, x0_m: number, tilt_rad: number, k
 	requireThat(Number.isFinite(a[0]) && a[0] > 0 && Number.isFinite(a[1]), 'beam Gaussian coefficient', 'finite with a positive real part (a confined beam)', `${a[0]} + ${a[1]}i`, '1/m²');
 	requireThat(Number.isInteger(maxOrder) && maxOrder >= 0 && maxOrder <= 200, 'highest mode order', 'a whole number from 0 to 200', maxOrder);
 	const P: C = [1 / (w_m * w_m) + a[0], a[1]];
-	const Q0: C = [2 * a[0] * x0_m, 2 * a[1] * x0_m + k_per_m * tilt_rad];
+	const Q0: C = [2 * a[0] * x0_m, 2 * a[1] * x0_m - k_per_m * tilt_rad];
 	// exponent Q0²/(4P) − a·x0²
 	const Q0sq = cmul(Q0, Q0);
 	const e1 = cdiv(Q0sq, [4 * P[0], 4 * P[1]]);
@@ -162,11 +163,11 @@ export function fractionsFromSizes(epsilon: number, betaAbs: number, maxOrder = 
 	// β = 2/P − 1 (w = 1) → P = 2/(1 + β), a = P − 1.
 	const P = cdiv([2, 0], [1 + beta[0], beta[1]]);
 	const a: C = [P[0] - 1, P[1]];
-	// α = √2·Q0/P → Q0 = α·P/√2 with α = √2·ε: Q0 = ε·P; Q0 = 2a·x0 + i·k·θ.
+	// α = √2·Q0/P → Q0 = α·P/√2 with α = √2·ε: Q0 = ε·P; Q0 = 2a·x0 − i·k·θ.
 	const Q0: C = [epsilon * P[0], epsilon * P[1]];
 	const x0 = Q0[0] / (2 * a[0]);
 	const k = 2;
-	const theta = (Q0[1] - 2 * a[1] * x0) / k;
+	const theta = -(Q0[1] - 2 * a[1] * x0) / k;
 	return hgFractions(1, a, x0, theta, k, maxOrder).fractions;
 }
 
