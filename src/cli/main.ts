@@ -19,7 +19,8 @@ const registry: Record<string, () => Promise<Command>> = {
 	overlap: () => import('./commands/overlap'),
 	mpe: () => import('./commands/mpe'),
 	hazard: () => import('./commands/hazard'),
-	match: () => import('./commands/match')
+	match: () => import('./commands/match'),
+	knife: () => import('./commands/knife')
 };
 
 function help(): string {
