@@ -21,7 +21,8 @@ const registry: Record<string, () => Promise<Command>> = {
 	hazard: () => import('./commands/hazard'),
 	match: () => import('./commands/match'),
 	spectrum: () => import('./commands/spectrum'),
-	diagnose: () => import('./commands/diagnose')
+	diagnose: () => import('./commands/diagnose'),
+	knife: () => import('./commands/knife')
 };
 
 function help(): string {
