@@ -133,7 +133,8 @@ export function emptyMatchSection(): MatchSection {
 		minSpacing: '0 mm',
 		lensCounts: [1, 2],
 		rankBy: 'robust',
-		expander: { magMin: '', magMax: '', lens1At: '', waistAfter: '' }
+		expander: { magMin: '', magMax: '', lens1At: '', waistAfter: '' },
+		lab: defaultLab()
 	};
 }
 
