@@ -24,10 +24,9 @@ function powerScale(option: string, unit: string): number {
 
 export async function run(argv: string[]) {
 	const args = parseArgs(argv);
-	allowOnly(args, ['kind', 'x-unit', 'p-unit']);
+	allowOnly(args, ['kind', 'x-unit', 'p-unit'], { files: { max: 1, label: 'scan file', example: 'npx beamwright knife scan.csv' } });
 	const file = args.positionals[0];
 	if (!file) throw new CliInputError('scan file: required — e.g. npx beamwright knife scan.csv');
-	if (args.positionals.length > 1) throw new CliInputError(`scan file: one file only — got ${args.positionals.length}: ${args.positionals.join(', ')}`);
 	const kind = optChoice<ScanKind>(args, 'kind', ['knife', 'slit'], 'knife');
 	const xUnit = optString(args, 'x-unit');
 	const pUnit = optString(args, 'p-unit');
