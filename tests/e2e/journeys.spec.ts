@@ -341,10 +341,9 @@ test('(j) a share link opened and accepted: every page follows', async ({ page, 
 	const link = await page.getByTestId('share-link').inputValue();
 	const context = await browser.newContext();
 	const other = await context.newPage();
-	await startWith(other, setupDoc({ name: 'Journey j, before' }), '/match/');
-	await other.goto(link);
+	await other.goto(link); // a browser with no setup of its own: the demo is shown and the link's setup offered
 	await expect(other.getByTestId('shared-offer')).toContainText('Journey file', { timeout: 15_000 });
-	await expect(other.getByTestId('src-wavelength')).toHaveValue('632.8 nm'); // not applied before the user says so
+	await expect(other.getByTestId('src-wavelength')).toHaveValue('1064 nm'); // not applied before the user says so
 	await other.getByTestId('shared-open').click();
 	await expectEveryPageShowsFile(other);
 	await context.close();
