@@ -188,14 +188,14 @@ export function parseInventoryCsv(text: string): InventoryRead {
 
 /**
  * Stated ranges of the safety inputs (SI): beyond them a cell is refused with the range, so that no
- * absurd value reaches the limits or the NOHD. Chosen to hold every laboratory laser (common practice).
+ * absurd value reaches the limits or the NOHD. The same ranges as the hazard form and `beamwright hazard`.
  */
 export const columnRanges: Record<string, { min_si?: number; max_si?: number; above_si?: number }> = {
 	wavelength: { min_si: 100e-9, max_si: 1e-3 },
-	power: { above_si: 0, max_si: 1e6 },
-	pulse_energy: { above_si: 0, max_si: 1e4 },
-	pulse_width: { min_si: 1e-15, max_si: 3e4 },
-	rep_rate: { above_si: 0, max_si: 1e12 },
+	power: { above_si: 0, max_si: 1e15 },
+	pulse_energy: { above_si: 0, max_si: 1e9 },
+	pulse_width: { min_si: 1e-13, max_si: 3e4 },
+	rep_rate: { above_si: 0, max_si: 1e15 },
 	beam_diameter: { above_si: 0, max_si: 10 },
 	divergence: { above_si: 0, max_si: Math.PI },
 	exposure: { min_si: 1e-13, max_si: 3e4 },
