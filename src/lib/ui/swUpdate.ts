@@ -6,14 +6,14 @@
 
 /** Call `onWaiting` when a new service worker has installed and waits to take over from the current one. */
 export function watchForUpdate(reg: ServiceWorkerRegistration, onWaiting: (w: ServiceWorker) => void): void {
-	if (reg.waiting && navigator.serviceWorker.controller) onWaiting(reg.waiting);
-	reg.addEventListener('updatefound', () => {
-		const w = reg.installing;
-		if (!w) return;
-		w.addEventListener('statechange', () => {
+	const follow = (w: ServiceWorker | null) => {
+		w?.addEventListener('statechange', () => {
 			if (w.state === 'installed' && navigator.serviceWorker.controller) onWaiting(w);
 		});
-	});
+	};
+	if (reg.waiting && navigator.serviceWorker.controller) onWaiting(reg.waiting);
+	else follow(reg.installing);
+	reg.addEventListener('updatefound', () => follow(reg.installing));
 }
 
 /** Let the waiting worker take over, then reload the page on the new version (the setup is saved first). */
