@@ -243,11 +243,28 @@ export class SetupStore {
 
 let shared: SetupStore | null = null;
 
+/**
+ * Create a store whose derivations belong to no component. The first caller is usually a page's
+ * `<script>`; a `$derived` created there would belong to that page's effect and stop following the
+ * document once the user navigates away (Svelte then reads it as an inert, frozen value). An effect
+ * root is never destroyed with a component, so the store's derivations stay live for the whole app,
+ * whichever page created it and whatever pages come and go.
+ */
+export function createDetachedStore(storage: KeyValueStorage | null): SetupStore {
+	let store: SetupStore | null = null;
+	$effect.root(() => {
+		store = new SetupStore(storage);
+	});
+	// On the server (prerender) an effect root does not run its function, and no component outlives
+	// another there, so a plain store is right.
+	return store ?? new SetupStore(storage);
+}
+
 /** The app's one store (browser: localStorage; server-side prerender: no storage). */
 export function getSetupStore(): SetupStore {
 	if (!shared) {
 		const storage = typeof localStorage !== 'undefined' ? localStorage : null;
-		shared = new SetupStore(storage);
+		shared = createDetachedStore(storage);
 		if (typeof window !== 'undefined') {
 			// Fetch the full unit engine at the user's first key press, or 1.5 s after start, whichever
 			// comes first — never on the path to the first view.

@@ -249,7 +249,7 @@ export function assessInventory(text: string, standard: StandardChoice = 'strict
 /** Result columns of the exported table (our own names; SI or the unit in the name); skipped on import. */
 export const resultColumns = [
 	'line', 'wavelength_nm', 'emission', 'exposure_s', 'exposure_basis', 'standard', 'limit_W_m2', 'limit_J_m2', 'limit_rule',
-	'limiting_aperture_mm', 'nohd_formula_m', 'nohd_beam_m', 'hazard_distance_m', 'od_required', 'od_whole', 'status', 'caution'
+	'limiting_aperture_mm', 'nohd_formula_m', 'nohd_beam_m', 'hazard_distance_m', 'od_required', 'od_whole', 'status', 'provenance', 'limit_source', 'caution'
 ] as const;
 
 /**
@@ -258,7 +258,7 @@ export const resultColumns = [
  */
 export const exportColumns = [
 	'line', 'name', 'room', 'wavelength_nm', 'emission', 'exposure_s', 'exposure_basis', 'standard', 'limit_W_m2', 'limit_J_m2', 'limit_rule',
-	'limiting_aperture_mm', 'nohd_formula_m', 'nohd_beam_m', 'hazard_distance_m', 'od_required', 'od_whole', 'status', 'note',
+	'limiting_aperture_mm', 'nohd_formula_m', 'nohd_beam_m', 'hazard_distance_m', 'od_required', 'od_whole', 'status', 'note', 'provenance', 'limit_source',
 	'wavelength', 'power', 'pulse_energy', 'pulse_width', 'rep_rate', 'beam_diameter', 'divergence', 'exposure', 'viewing', 'source_angle', 'caution'
 ] as const;
 
@@ -295,6 +295,8 @@ export function inventoryToCsv(table: InventoryTable): string {
 			od_whole: a ? a.odWhole : '',
 			status: r.ok ? 'ok' : `refused: ${r.message}`,
 			note: r.note,
+			provenance: a ? `${a.provenance}: ${a.provenanceLine}` : '',
+			limit_source: a ? a.limitSource : '',
 			caution: table.caution
 		};
 		out.push({ line: r.line, cells });

@@ -13,7 +13,7 @@ const text = (d: string) => v.optional(v.string(), d);
 
 export const SafetySchema = v.object({
 	version: v.optional(v.literal(1), 1),
-	label: text('Teal line alignment module'),
+	label: text('Demo laser C (514.5 nm)'),
 	standard: v.optional(v.picklist(standardChoices as unknown as [string, ...string[]]), 'stricter'),
 	/** 'exit': waist at the exit aperture from diameter and divergence; 'bench': the beam the Bench propagates. */
 	beamFrom: v.optional(v.picklist(['exit', 'bench']), 'exit'),
