@@ -31,6 +31,10 @@ test('pick a target, run the search with progress, put a solution on the bench',
 	expect(await rows.count()).toBeGreaterThan(1);
 	await expect(page.getByTestId('rail-sketch')).toBeVisible();
 	await expectNoBrokenNumbers(page);
+	// The fundamental-mode figure beside the efficiency, the target's 1 % tolerances, positions to 10 µm.
+	await expect(page.getByTestId('match-fundamental').first()).toContainText('%');
+	await expect(page.getByTestId('match-target-tolerance')).toContainText('Rayleigh range');
+	await expect(rows.first().locator('td').nth(1)).toContainText(/at \d+\.\d\d mm/);
 
 	// The first solution's lenses, as the table shows them.
 	const lensText = await rows.first().locator('td').nth(1).innerText();
