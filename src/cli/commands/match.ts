@@ -1,4 +1,4 @@
-import { allowOnly, CliInputError, optChoice, parseArgs } from '../args';
+import { allowOnly, CliInputError, optChoice, optInteger, parseArgs } from '../args';
 import { compileSource, type FieldError } from '../../lib/document/compile';
 import { readSetupFile } from '../setupFile';
 import { searchMatches } from '../../lib/optics/solve';
@@ -9,7 +9,7 @@ export const usage = 'npx beamwright match setup.json [--rank robust|efficiency|
 
 export async function run(argv: string[]) {
 	const args = parseArgs(argv);
-	allowOnly(args, ['rank', 'top']);
+	allowOnly(args, ['rank', 'top'], { files: { max: 1, label: 'setup', example: 'npx beamwright match setup.json' } });
 	const file = args.positionals[0];
 	const doc = await readSetupFile(file, 'match');
 	if (!doc.match) throw new CliInputError(`setup: ${file} has no "match" section (target, inventory, rail)`);
@@ -19,9 +19,7 @@ export async function run(argv: string[]) {
 	const c = compileMatch(doc.match, source);
 	if (!c.ok) throw new CliInputError(`setup: ${c.errors[0]}`);
 	const rank = optChoice(args, 'rank', ['robust', 'efficiency', 'tolerance', 'length'] as const, (c.problem.rankBy ?? 'robust') as 'robust');
-	const topText = args.options.get('top');
-	const top = topText === undefined ? 10 : Number(topText);
-	if (!(Number.isInteger(top) && top >= 1 && top <= 100)) throw new CliInputError(`--top: must be a whole number from 1 to 100 — got ${String(topText)}`);
+	const top = optInteger(args, 'top', 1, 100, 10);
 	const solutions = searchMatches({ ...c.problem, rankBy: rank, keep: top });
 	return {
 		target: c.problem.target.what,
