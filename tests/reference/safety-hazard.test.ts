@@ -66,6 +66,11 @@ describe('requiredOpticalDensity — OD = log10(H/H_MPE), IEC TR 60825-14 / ANSI
 		expect(requiredOpticalDensity(1000, 1).odWhole).toBe(3);
 		expect(requiredOpticalDensity(0.5, 1)).toEqual({ od: 0, odWhole: 0 });
 	});
+	it('rounded up, never to the nearest: OD 3.2 needs eyewear of OD 4 (common practice: the marked OD is at or above the need)', () => {
+		const od = requiredOpticalDensity(10 ** 3.2, 1);
+		expectClose(od.od, 3.2, 1e-12);
+		expect(od.odWhole).toBe(4);
+	});
 });
 
 describe('aided viewing and diffuse reflection (formula forms)', () => {
