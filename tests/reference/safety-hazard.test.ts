@@ -36,7 +36,7 @@ function erf(x: number): number {
 
 // The 514.5 nm, 5 W beam of the issue: 1/e diameter a = 2 mm and divergence φ = 1 mrad, i.e. 1/e² values ×√2.
 const P = 5;
-const E_MPE = (18 * 0.25 ** 0.75) / 0.25; // Directive 2006/25/EC Table 2.2, 400–700 nm, 0.25 s (from memory): 25.46 W/m²
+const E_MPE = (18 * 0.25 ** 0.75) / 0.25; // Directive 2006/25/EC Table 2.2, row 400–700 nm, 1.8·10⁻⁵–10 s (read in the French labour code reproduction): 25.46 W/m²
 const d = 2e-3 * Math.SQRT2;
 const Th = 1e-3 * Math.SQRT2;
 
