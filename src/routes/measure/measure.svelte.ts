@@ -40,12 +40,25 @@ export const MeasureSchema = v.object({
 	weighting: v.picklist(['relative', 'plain']),
 	/** Where the measurement's z = 0 lies on the bench axis. */
 	zOffset: v.string(),
-	pixel: v.string()
+	pixel: v.string(),
+	/** Knife-edge or slit scans typed or pasted by the user (text kept as entered). */
+	knife: v.optional(
+		v.array(
+			v.object({
+				axis: v.picklist(['x', 'y']),
+				kind: v.picklist(['knife', 'slit']),
+				z: v.string(),
+				xUnit: v.picklist(unitKeys),
+				scan: v.string()
+			})
+		),
+		[]
+	)
 });
 export type MeasureDoc = v.InferOutput<typeof MeasureSchema>;
 
 export function defaultMeasure(): MeasureDoc {
-	return { widths: '', zUnit: 'mm', dUnit: 'um', wavelength: '', wavelengthFrom: 'bench', weighting: 'relative', zOffset: '0 mm', pixel: '5.5 um' };
+	return { widths: '', zUnit: 'mm', dUnit: 'um', wavelength: '', wavelengthFrom: 'bench', weighting: 'relative', zOffset: '0 mm', pixel: '5.5 um', knife: [] };
 }
 
 export const fields = {
@@ -267,6 +280,38 @@ export class MeasureState {
 			d.source.y = { ...d.source.y, kind: 'waist', ...y };
 		});
 		return null;
+	}
+
+	/**
+	 * Append knife-edge widths: scans at the same z for x and y make one plane z, dx, dy; when every
+	 * scan is of one axis and the table is empty or has one diameter column, rows z, d. Returns an
+	 * error message or null.
+	 */
+	addKnifePlanes(scans: Array<{ z_m: number; axis: 'x' | 'y'; d_m: number }>): string | null {
+		if (scans.length === 0) return 'No fitted scan with a valid z to add.';
+		const t = this.table;
+		const axes = new Set(scans.map((s) => s.axis));
+		const oneAxis = axes.size === 1;
+		const tableCols = t && t.ok ? t.value.columns : null;
+		if (oneAxis && tableCols !== 'xy') {
+			const zu = t && t.ok ? t.value.zUnit_m : unitMetres(this.doc.zUnit);
+			const du = t && t.ok ? t.value.dUnit_m : unitMetres(this.doc.dUnit);
+			const num = (x: number) => Number(x.toPrecision(6)).toString();
+			const lines = scans.map((s) => `${num(s.z_m / zu)},${num(s.d_m / du)}`);
+			const base = this.doc.widths.trimEnd();
+			this.set('widths', (base === '' ? 'z,d\n' : base + '\n') + lines.join('\n') + '\n', true);
+			return null;
+		}
+		const byZ = new Map<number, { x?: number; y?: number }>();
+		for (const s of scans) {
+			const e = byZ.get(s.z_m) ?? {};
+			if (e[s.axis] !== undefined) return `Two ${s.axis} scans at the same z (${formatSI(s.z_m, 'm', 4)}): keep one.`;
+			e[s.axis] = s.d_m;
+			byZ.set(s.z_m, e);
+		}
+		const lonely = [...byZ.entries()].filter(([, e]) => e.x === undefined || e.y === undefined).map(([z]) => formatSI(z, 'm', 4));
+		if (lonely.length) return `A table with dx and dy needs an x and a y scan at each z; missing a partner at z = ${lonely.join(', ')}.`;
+		return this.addPlanes([...byZ.entries()].map(([z_m, e]) => ({ z_m, dx_m: e.x!, dy_m: e.y! })));
 	}
 
 	/**
