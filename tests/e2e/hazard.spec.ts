@@ -25,7 +25,12 @@ test('the workspace computes the reference beam and keeps the cautions in view',
 	// Table 2.2, from memory); formula NOHD (√(4P/(πE)) − d/√2)/(Θ/√2) = 499.6 m; OD 3.71 → 4.
 	await expect(page.getByTestId('hz-mpe-E')).toContainText('25.46 W/m²');
 	await expect(page.getByTestId('hz-nohd-formula')).toHaveText('499.6 m');
-	await expect(page.getByTestId('hz-nohd-beam')).toHaveText('501.6 m');
+	// Along the beam (waist w0 = d/2 at the exit, w(z)² = w0² + (Θ/2)²z², Kogelnik & Li 1966, eq. 20, number
+	// from memory), averaged over the 7 mm aperture (radius a): the power through it is P·(1 − e^(−2a²/w²))
+	// (Siegman, "Lasers", 1986, §17.1, from memory), so the NOHD is where w² = −2a²/ln(1 − E·π·a²/P).
+	const [P, E, a, w0, th] = [5, (18 * 0.25 ** 0.75) / 0.25, 3.5e-3, 2.83e-3 / 2, 1.41e-3 / 2];
+	const w2 = (-2 * a * a) / Math.log(1 - (E * Math.PI * a * a) / P);
+	await expect(page.getByTestId('hz-nohd-beam')).toHaveText(`${(Math.sqrt(w2 - w0 * w0) / th).toFixed(1)} m`); // 501.6 m
 	await expect(page.getByTestId('hz-od')).toContainText('at least OD 4');
 	for (const c of cautions) await expect(page.getByTestId('cautions')).toContainText(c);
 	await expect(page.getByTestId('cautions')).toBeVisible();

@@ -79,7 +79,9 @@ test('bad numbers name the field and the range, keep the text, and survive a rel
 	await expect(page.getByTestId('match-run')).toBeDisabled();
 	await page.getByTestId('inv-focal-0').fill('0 mm');
 	await expect(page.getByText(/focal length must be at least 1 mm/).first()).toBeVisible();
-	await page.waitForTimeout(400);
+	// Wait for the autosave to hold both edits (no fixed sleep).
+	await expect.poll(() => page.evaluate(() => Object.values(localStorage).join('\n'))).toContain('0 mm');
+	await expect.poll(() => page.evaluate(() => Object.values(localStorage).join('\n'))).toContain('1e9 m');
 	await page.reload();
 	await expect(page.getByTestId('rail-to')).toHaveValue('1e9 m');
 	await expect(page.getByTestId('inv-focal-0')).toHaveValue('0 mm');

@@ -5,7 +5,7 @@
  * distances are the same as comparing one pulse with the per-pulse limit).
  *
  * Beam sizes: the formula forms of IEC TR 60825-14 and ANSI Z136.1 use the 1/e diameter a and the
- * 1/e full divergence φ; our inputs are 1/e² (DESIGN.md), so a = d/√2 and φ = Θ/√2. With these,
+ * 1/e full divergence φ; our inputs are 1/e² (DEVELOPERS.md), so a = d/√2 and φ = Θ/√2. With these,
  * 4P/(π·a²) is the peak (on-axis) irradiance of a Gaussian beam.
  */
 import { apertureAveragedIrradiance_W_m2, peakIrradiance_W_m2 } from './aperture';

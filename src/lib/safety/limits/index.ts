@@ -1,6 +1,6 @@
 /**
  * Exposure limits by standard edition. The user picks an edition; where none is picked the stricter
- * of the two is used and named (DESIGN.md: "the default is the stricter").
+ * of the two is used and named (DEVELOPERS.md: "the default is the stricter").
  */
 import { eu200625 } from './eu-2006-25';
 import { iec608251_2014 } from './iec-60825-1-2014';
