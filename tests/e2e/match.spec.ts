@@ -175,3 +175,12 @@ test('two-mirror cavity with a lens inside; expander read-outs for both axes of 
 	await expect(row).toContainText('○');
 	await expect(row.getByTestId('expander-y').first()).toContainText(/□ \d/);
 });
+
+test('a read-out that cannot compute says why instead of showing nothing', async ({ page }) => {
+	await page.getByTestId('exp-min').fill('abc');
+	await expect(page.getByTestId('expanders-why')).toContainText('Fix the expander fields');
+	await page.getByTestId('exp-min').fill('2');
+	await expect(page.getByTestId('expanders')).toBeVisible();
+	await page.getByTestId('target-at').fill('5 kg');
+	await expect(page.getByTestId('single-lens-why')).toContainText('not valid yet');
+});
