@@ -19,7 +19,10 @@ const registry: Record<string, () => Promise<Command>> = {
 	overlap: () => import('./commands/overlap'),
 	mpe: () => import('./commands/mpe'),
 	hazard: () => import('./commands/hazard'),
-	match: () => import('./commands/match')
+	match: () => import('./commands/match'),
+	spectrum: () => import('./commands/spectrum'),
+	diagnose: () => import('./commands/diagnose'),
+	knife: () => import('./commands/knife')
 };
 
 function help(): string {

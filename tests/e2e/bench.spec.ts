@@ -75,8 +75,8 @@ for (const id of ['src-wavelength', 'src-index', 'src-x-m2', 'src-x-waist', 'src
 				await expect(page.locator(`#${describedBy}`)).toBeVisible();
 				await expect(page.getByTestId('setup-error')).toBeVisible();
 			} else {
-				// Accepted: only a waist location may be 0 or negative; every other case must be refused.
-				expect(`${id}=${bad}`).toMatch(/waistAt=(0|-3 mm)$/);
+				// Accepted: only a waist location may be 0 or negative, and "Plot to" empty (automatic: past the last waist).
+				expect(`${id}=${bad}`).toMatch(/waistAt=(0|-3 mm)$|^view-end=$/);
 			}
 			await expect(page.getByTestId('caustic-plot')).toBeVisible();
 			await expectNoBrokenNumbers(page);
@@ -128,7 +128,8 @@ test('export then import round-trips the setup', async ({ page }) => {
 	const download = page.waitForEvent('download');
 	await page.getByTestId('export').click();
 	const file = await (await download).path();
-	await page.getByRole('button', { name: 'New' }).click();
+	await page.getByTestId('new').click();
+	await page.getByTestId('new-all').click();
 	await expect(page.getByTestId('src-wavelength')).toHaveValue('632.8 nm');
 	await page.getByTestId('import-input').setInputFiles(file);
 	await expect(page.getByTestId('src-wavelength')).toHaveValue('633 nm');
@@ -142,7 +143,7 @@ test('a copied link carries the setup to another browser, which opens it only wh
 
 	const other = await browser.newPage();
 	await other.goto(link);
-	await expect(other.getByTestId('shared-offer')).toContainText('Larkspur');
+	await expect(other.getByTestId('shared-offer')).toContainText('Demo lab');
 	// Not applied until the user says so.
 	await expect(other.getByTestId('src-wavelength')).toHaveValue('1064 nm');
 	await other.getByTestId('shared-open').click();
@@ -190,7 +191,8 @@ async function refusesBadInput(page: Page, prefix: string) {
 // One test per source form and per element kind (each stays short on a busy machine).
 for (const form of ['waist', 'divergence', 'twoDiameters']) {
 	test(`every numeric field of the source (${form} form) refuses bad input with a message`, async ({ page }) => {
-		await page.getByRole('button', { name: 'New' }).click();
+		await page.getByTestId('new').click();
+		await page.getByTestId('new-all').click();
 		await page.getByTestId('src-x-kind').selectOption(form);
 		await refusesBadInput(page, 'src-');
 	});
@@ -206,7 +208,8 @@ test('the element kinds are the ones tested below', async ({ page }) => {
 
 for (const kind of elementKinds) {
 	test(`every numeric field of a new ${kind} element refuses bad input with a message`, async ({ page }) => {
-		await page.getByRole('button', { name: 'New' }).click();
+		await page.getByTestId('new').click();
+		await page.getByTestId('new-all').click();
 		await page.getByTestId('add-kind').selectOption(kind);
 		await page.getByTestId('add-element').click();
 		const label = (await page.locator('li.el.selected strong').innerText()).trim();

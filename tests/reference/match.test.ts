@@ -18,9 +18,10 @@ function onBench(p: MatchProblem, lenses: { f_m: number; z_m: number }[], source
 		end_m: p.target.z_m + 0.1
 	});
 	const b = beamAt(r, p.target.z_m);
+	// The search's figure is the overlap of the embedded Gaussian (q of the real beam, M² left out of the overlap).
 	return {
-		x: axisCoupling({ q: b.x.q, m2: source.m2x }, { q: p.target.x }, lam),
-		y: axisCoupling({ q: b.y.q, m2: source.m2y }, { q: p.target.y }, lam)
+		x: axisCoupling({ q: b.x.q }, { q: p.target.x }, lam),
+		y: axisCoupling({ q: b.y.q }, { q: p.target.y }, lam)
 	};
 }
 

@@ -33,7 +33,7 @@ async function inventory(argv: ReturnType<typeof parseArgs>) {
 		throw new CliInputError(`--inventory: cannot read "${path}" — ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`);
 	}
 	const table = assessInventory(text, standard);
-	if (table.rows.length === 0) {
+	if (table.refused || table.rows.length === 0) {
 		const first = table.issues[0];
 		throw new CliInputError(`--inventory: no laser could be read from "${path}"${first ? ` — line ${first.line}: ${first.message}` : ''}`);
 	}
@@ -52,6 +52,8 @@ async function inventory(argv: ReturnType<typeof parseArgs>) {
 						exposure_s: r.result.exposure.duration_s,
 						exposureBasis: r.result.exposure.basis,
 						standardId: r.result.standardId,
+						provenance: r.result.provenance,
+						limitSource: r.result.limitSource,
 						mpe_W_m2: r.result.mpe_W_m2,
 						mpe_J_m2: r.result.mpe_J_m2,
 						rule: r.result.rule,
@@ -117,6 +119,8 @@ export async function run(argv: string[]) {
 		rule: a.rule,
 		mechanism: a.mechanism,
 		limitSource: a.limitSource,
+		provenance: a.provenance,
+		provenanceLine: a.provenanceLine,
 		factors: a.factors,
 		pulseRules: a.pulseRules,
 		standard: a.standard,

@@ -24,15 +24,19 @@ export async function run(argv: string[]) {
 	return {
 		target: c.problem.target.what,
 		rankedBy: rank,
+		efficiencyMeans: 'TEM00 overlap of the embedded Gaussian with the target × aperture transmission (the same at every plane); fundamentalModePower = efficiency × 2/(1+M²x) × 2/(1+M²y), the power of the fundamental mode of a Gaussian Schell-model beam coupled in',
 		solutions: solutions.map((s, i) => ({
 			rank: i + 1,
 			efficiency: s.efficiency,
+			fundamentalModePower: s.fundamentalModePower,
+			fundamentalFraction: s.fundamentalFraction,
 			couplingX: s.couplingX,
 			couplingY: s.couplingY,
 			transmitted: s.transmitted,
 			sensitivity: s.sensitivity,
 			length_m: s.length_m,
-			lenses: s.lenses.map((l) => ({ label: l.label, f_m: l.f_m, z_m: l.z_m, lossPer1mm: l.positionLoss, lossPer1pctFocal: l.focalLoss }))
+			targetTolerance: s.targetTolerance,
+			lenses: s.lenses.map((l) => ({ label: l.label, f_m: l.f_m, z_m: l.z_m, lossPer1mm: l.positionLoss, lossPer1pctFocal: l.focalLoss, shiftFor1pct_m: l.shiftFor1pct_m }))
 		}))
 	};
 }
