@@ -62,6 +62,7 @@ export function emptySetup(): SetupDoc {
 		notes: '',
 		source: { label: 'Laser', wavelength: '632.8 nm', index: '1', astigmatic: false, x: blankAxis(), y: blankAxis() },
 		elements: [],
-		view: { end: '1 m' }
+		// Empty: the plot runs past the last element to the last real waist (plotRange.ts).
+		view: { end: '' }
 	};
 }
