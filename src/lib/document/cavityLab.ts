@@ -130,6 +130,8 @@ interface Ctx {
 	train: TrainInput;
 	geometry: CavityGeometry;
 	lam: number;
+	/** Cached: the source's beam before the first element. */
+	base?: { z_m: number; x: QHat; y: QHat; m2x: number; m2y: number };
 }
 
 /** Ray matrix (reduced; plain in air) from bench position z0 to z1 through the train's elements. */
@@ -162,14 +164,44 @@ export function rayMatrix(train: TrainInput, z0_m: number, z1_m: number): { x: M
 	return { x: mul(f, x), y: mul(f, y) };
 }
 
-/** The beam's q̂ per axis at the target plane, with one element moved by `shift_m`. */
+/**
+ * The beam's q̂ per axis arriving at the target plane (the cavity's input mirror itself and anything at or
+ * after it left out), with one element moved by `shift_m`. The source's beam is propagated once to the
+ * first element; from there the ray matrices of the (moved) train carry it to the target.
+ */
 function beamAtTarget(ctx: Ctx, lensId: string | null, shift_m: number): { x: QHat; y: QHat; m2x: number; m2y: number } {
-	const elements = ctx.train.elements.map((e) => (lensId !== null && e.id === lensId ? { ...e, z_m: e.z_m + shift_m } : e));
 	const at = ctx.geometry.at_m;
-	const r = propagate({ ...ctx.train, elements, end_m: Math.max(ctx.train.end_m, at + 0.01) });
-	const b = beamAt(r, at);
-	if (Math.abs(b.x.index - 1) > 1e-9) throw new RangeError(`the beam at the cavity's input mirror is in a medium of index ${b.x.index}; it must arrive in air`);
-	return { x: b.x.q, y: b.y.q, m2x: r.m2x, m2y: r.m2y };
+	const elements = ctx.train.elements.map((e) => (lensId !== null && e.id === lensId ? { ...e, z_m: e.z_m + shift_m } : e)).filter((e) => e.z_m < at);
+	const base = ctx.base ?? (ctx.base = sourceBeam(ctx));
+	const first = Math.min(base.z_m, ...elements.map((e) => e.z_m));
+	if (first < base.z_m) {
+		// A moved element now sits before the reference plane: propagate from the source directly.
+		const r = propagate({ ...ctx.train, elements, end_m: Math.max(ctx.train.end_m, at + 0.01) });
+		const b = beamAt(r, at);
+		return { x: b.x.q, y: b.y.q, m2x: r.m2x, m2y: r.m2y };
+	}
+	const m = rayMatrix({ ...ctx.train, elements }, base.z_m, at);
+	const apply = (mm: Mat2, q: QHat): QHat => {
+		const [A, B, C, D] = mm;
+		const nr = A * q.re + B;
+		const ni = A * q.im;
+		const dr = C * q.re + D;
+		const di = C * q.im;
+		const den = dr * dr + di * di;
+		return { re: (nr * dr + ni * di) / den, im: (ni * dr - nr * di) / den };
+	};
+	return { x: apply(m.x, base.x), y: apply(m.y, base.y), m2x: base.m2x, m2y: base.m2y };
+}
+
+/** The source's beam in air at a plane before every element (or at the target when there are none). */
+function sourceBeam(ctx: Ctx): { z_m: number; x: QHat; y: QHat; m2x: number; m2y: number } {
+	const at = ctx.geometry.at_m;
+	const r = propagate({ ...ctx.train, elements: [], end_m: Math.max(ctx.train.end_m, at + 0.01) });
+	const firstEl = ctx.train.elements.reduce((m, e) => Math.min(m, e.z_m), at);
+	const z = Math.min(firstEl, at) - 0.05;
+	const b = beamAt(r, z);
+	if (Math.abs(b.x.index - 1) > 1e-9) throw new RangeError(`the beam must travel in air between the source and the cavity — the source medium has index ${b.x.index}`);
+	return { z_m: z, x: b.x.q, y: b.y.q, m2x: r.m2x, m2y: r.m2y };
 }
 
 const MAX_ORDER = 6;
@@ -400,8 +432,9 @@ export function diagnoseLab(doc: SetupDoc, report: LabReport & { ctx: Ctx | null
 			return { x: Math.hypot(bx.re, bx.im), y: Math.hypot(by.re, by.im) };
 		};
 		try {
-			const r = lensMoveFor(betaAt, measured, 0.03, 41);
-			return { id: l.id, label: l.label, moveA_m: r.plus === null ? null : -r.plus, moveB_m: r.minus === null ? null : -r.minus, misfit: Math.min(r.misfit.plus, r.misfit.minus) };
+			const r = lensMoveFor(betaAt, measured, 0.03, 31);
+			const tidy = (v: number | null) => (v === null ? null : Math.abs(v) < 1e-6 ? 0 : -v);
+			return { id: l.id, label: l.label, moveA_m: tidy(r.plus), moveB_m: tidy(r.minus), misfit: Math.min(r.misfit.plus, r.misfit.minus) };
 		} catch {
 			return { id: l.id, label: l.label, moveA_m: null, moveB_m: null, misfit: Infinity };
 		}
