@@ -75,7 +75,8 @@ test('bad input in every numeric field shows a message and nothing breaks', asyn
 					await expect(page.getByTestId('setup-error')).toBeVisible();
 				} else {
 					// Accepted: it must be a genuinely valid value for that field (e.g. "0" index is not).
-					expect(`${id}=${bad}`).toMatch(/waistAt=(0|-3 mm)$/);
+					// An empty "Plot to" means automatic (past the last waist).
+					expect(`${id}=${bad}`).toMatch(/waistAt=(0|-3 mm)$|^view-end=$/);
 				}
 			}
 			await expect(page.getByTestId('caustic-plot')).toBeVisible();
@@ -127,7 +128,8 @@ test('export then import round-trips the setup', async ({ page }) => {
 	const download = page.waitForEvent('download');
 	await page.getByTestId('export').click();
 	const file = await (await download).path();
-	await page.getByRole('button', { name: 'New' }).click();
+	await page.getByTestId('new').click();
+	await page.getByTestId('new-all').click();
 	await expect(page.getByTestId('src-wavelength')).toHaveValue('632.8 nm');
 	await page.getByTestId('import-input').setInputFiles(file);
 	await expect(page.getByTestId('src-wavelength')).toHaveValue('633 nm');
@@ -141,7 +143,7 @@ test('a copied link carries the setup to another browser, which opens it only wh
 
 	const other = await browser.newPage();
 	await other.goto(link);
-	await expect(other.getByTestId('shared-offer')).toContainText('Larkspur');
+	await expect(other.getByTestId('shared-offer')).toContainText('Demo lab');
 	// Not applied until the user says so.
 	await expect(other.getByTestId('src-wavelength')).toHaveValue('1064 nm');
 	await other.getByTestId('shared-open').click();
@@ -159,7 +161,8 @@ test('a damaged link is refused and the current setup stays', async ({ page }) =
 });
 
 test('every numeric field of every element kind and source form refuses bad input with a message', async ({ page }) => {
-	await page.getByRole('button', { name: 'New' }).click();
+	await page.getByTestId('new').click();
+	await page.getByTestId('new-all').click();
 	const bad = ['', 'abc', '5 kg', '1e400 m', 'NaN'];
 	async function tryAll(prefix: string) {
 		const inputs = page.locator(`[data-testid^="${prefix}"]`);

@@ -60,7 +60,7 @@ test('the whole-lab table imports the demo lab and exports CSV', async ({ page }
 	await page.getByTestId('hz-lab-demo').click();
 	const rows = page.getByTestId('hz-lab-table').locator('tbody tr');
 	await expect(rows).toHaveCount(8);
-	await expect(page.getByTestId('hz-lab-table')).toContainText('Teal line alignment module');
+	await expect(page.getByTestId('hz-lab-table')).toContainText('Demo laser C (514.5 nm)');
 	const download = page.waitForEvent('download');
 	await page.getByTestId('hz-lab-export').click();
 	const file = await download;

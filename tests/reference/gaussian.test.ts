@@ -69,6 +69,15 @@ describe('Rayleigh range and far-field angle (Kogelnik & Li, "Laser Beams and Re
 		expectClose(beamAt(p, zFar).x.w_m / zFar, theta, 1e-9);
 	});
 
+	it('θ = M²·λ0/(π·n·w0) for a real beam (M² > 1) in a medium (n ≠ 1) (Siegman 1986, eq. 17.16, from memory)', () => {
+		// Worked by hand: M² = 1.7, λ0 = 1064 nm, n = 1.45, w0 = 0.3 mm → θ = 1.7·1064e-9/(π·1.45·3e-4) = 1.3236 mrad.
+		const theta = farFieldHalfAngle_rad(0.3e-3, NdYAG, 1.7, 1.45);
+		expectClose(theta, (1.7 * NdYAG) / (Math.PI * 1.45 * 0.3e-3), 1e-14);
+		expectClose(theta, 1.3236e-3, 1e-4);
+		// Without M² it would be 1.7 times smaller; in vacuum, 1.45 times larger.
+		expectClose(farFieldHalfAngle_rad(0.3e-3, NdYAG, 1.7, 1), (1.7 * NdYAG) / (Math.PI * 0.3e-3), 1e-14);
+	});
+
 	it('refuses a non-positive waist or wavelength and M² < 1 with a message naming the rule', () => {
 		expect(() => rayleighRange_m(0, HeNe)).toThrow(/waist radius must be > 0/);
 		expect(() => rayleighRange_m(1e-3, -5e-7)).toThrow(/wavelength must be > 0/);

@@ -10,9 +10,9 @@ export async function run(argv: string[]) {
 	allowOnly(args, ['wavelength', 'waist', 'm2', 'index', 'at']);
 	const wavelength_m = requireQuantity(args, 'wavelength', sourceFields.wavelength, '1064nm');
 	const w0_m = requireQuantity(args, 'waist', sourceFields.waist, '0.5mm');
-	const m2 = optQuantity(args, 'm2', sourceFields.m2) ?? 1;
-	const index = optQuantity(args, 'index', sourceFields.index) ?? 1;
-	const z_m = optQuantity(args, 'at', { kind: 'length', min_si: -1e6, max_si: 1e6 }) ?? 0;
+	const m2 = optQuantity(args, 'm2', sourceFields.m2, '1.3') ?? 1;
+	const index = optQuantity(args, 'index', sourceFields.index, '1') ?? 1;
+	const z_m = optQuantity(args, 'at', { kind: 'length', min_si: -1e6, max_si: 1e6 }, '2m') ?? 0;
 	const props = { wavelength_m, m2 };
 	// The plane sits z downstream of the waist: the waist is −z from the plane.
 	const b = beamFromQ(qFromWaist(w0_m, -z_m, props, index), props, index);

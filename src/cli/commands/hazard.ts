@@ -2,7 +2,7 @@
  * `npx beamwright hazard`: hazard distances and eyewear OD for one beam, or the whole-lab table from a
  * CSV (`--inventory lasers.csv [--format csv]`). JSON (or CSV) with the caution.
  */
-import { readFile } from 'node:fs/promises';
+import { readText } from '../readText';
 import { allowOnly, CliInputError, optChoice, optQuantity, optString, parseArgs, requireQuantity } from '../args';
 import { assessBeam } from '../../lib/safety/assess';
 import { viewingCases } from '../../lib/safety/exposure';
@@ -21,18 +21,19 @@ export const usage = [
 
 const single = ['standard', 'wavelength', 'power', 'pulse-energy', 'pulse-width', 'repetition-rate', 'diameter', 'divergence', 'duration', 'viewing', 'source-angle', 'optic-aperture', 'optic-magnification', 'optic-transmission', 'reflectance', 'viewing-angle'];
 
-async function inventory(path: string, argv: ReturnType<typeof parseArgs>) {
+async function inventory(argv: ReturnType<typeof parseArgs>) {
 	allowOnly(argv, ['inventory', 'standard', 'format']);
+	const path = optString(argv, 'inventory', 'the path of a CSV file, e.g. --inventory lasers.csv')!;
 	const standard = optChoice(argv, 'standard', standardChoices, 'stricter');
 	const format = optChoice(argv, 'format', ['json', 'csv'] as const, 'json');
 	let text: string;
 	try {
-		text = await readFile(path, 'utf8');
+		text = await readText(path);
 	} catch (e) {
 		throw new CliInputError(`--inventory: cannot read "${path}" — ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`);
 	}
 	const table = assessInventory(text, standard);
-	if (table.rows.length === 0) {
+	if (table.refused || table.rows.length === 0) {
 		const first = table.issues[0];
 		throw new CliInputError(`--inventory: no laser could be read from "${path}"${first ? ` — line ${first.line}: ${first.message}` : ''}`);
 	}
@@ -51,6 +52,8 @@ async function inventory(path: string, argv: ReturnType<typeof parseArgs>) {
 						exposure_s: r.result.exposure.duration_s,
 						exposureBasis: r.result.exposure.basis,
 						standardId: r.result.standardId,
+						provenance: r.result.provenance,
+						limitSource: r.result.limitSource,
 						mpe_W_m2: r.result.mpe_W_m2,
 						mpe_J_m2: r.result.mpe_J_m2,
 						rule: r.result.rule,
@@ -71,15 +74,14 @@ async function inventory(path: string, argv: ReturnType<typeof parseArgs>) {
 
 export async function run(argv: string[]) {
 	const args = parseArgs(argv);
-	const inv = optString(args, 'inventory');
-	if (inv !== undefined) return inventory(inv, args);
+	if (args.options.has('inventory')) return inventory(args);
 	allowOnly(args, single);
 	const standard = optChoice(args, 'standard', standardChoices, 'stricter');
 	const wavelength_m = requireQuantity(args, 'wavelength', wavelengthSpec, '514.5nm');
-	const power_W = optQuantity(args, 'power', { kind: 'power', above_si: 0, max_si: 1e15 });
-	const pulseEnergy_J = optQuantity(args, 'pulse-energy', { kind: 'energy', above_si: 0, max_si: 1e9 });
-	const pulseWidth_s = optQuantity(args, 'pulse-width', { kind: 'time', min_si: 1e-13, max_si: 3e4 });
-	const repetitionRate_Hz = optQuantity(args, 'repetition-rate', { kind: 'frequency', above_si: 0, max_si: 1e15 });
+	const power_W = optQuantity(args, 'power', { kind: 'power', above_si: 0, max_si: 1e15 }, '5W');
+	const pulseEnergy_J = optQuantity(args, 'pulse-energy', { kind: 'energy', above_si: 0, max_si: 1e9 }, '1mJ');
+	const pulseWidth_s = optQuantity(args, 'pulse-width', { kind: 'time', min_si: 1e-13, max_si: 3e4 }, '10ns');
+	const repetitionRate_Hz = optQuantity(args, 'repetition-rate', { kind: 'frequency', above_si: 0, max_si: 1e15 }, '10Hz');
 	if (power_W === undefined && pulseEnergy_J === undefined) throw new CliInputError('--power: required — e.g. --power 5W (or --pulse-energy 1mJ --pulse-width 10ns for a pulsed laser)');
 	if (power_W !== undefined && (pulseEnergy_J !== undefined || pulseWidth_s !== undefined || repetitionRate_Hz !== undefined))
 		throw new CliInputError('--power: give either --power (CW) or --pulse-energy with --pulse-width [--repetition-rate], not both');
@@ -87,20 +89,20 @@ export async function run(argv: string[]) {
 	if (pulseEnergy_J === undefined && (pulseWidth_s !== undefined || repetitionRate_Hz !== undefined)) throw new CliInputError('--pulse-energy: required with --pulse-width/--repetition-rate — e.g. --pulse-energy 1mJ');
 	const diameter_m = requireQuantity(args, 'diameter', { kind: 'length', above_si: 0, max_si: 10 }, '2.83mm');
 	const fullDivergence_rad = requireQuantity(args, 'divergence', { kind: 'angle', above_si: 0, max_si: Math.PI }, '1.41mrad');
-	const duration_s = optQuantity(args, 'duration', durationSpec);
+	const duration_s = optQuantity(args, 'duration', durationSpec, '0.25s');
 	if (duration_s !== undefined && pulseEnergy_J !== undefined && repetitionRate_Hz === undefined)
 		throw new CliInputError('--duration: a single pulse is exposed for its width — leave --duration out, or give --repetition-rate for a pulse train');
 	if (duration_s !== undefined && args.options.has('viewing')) throw new CliInputError('--viewing: sets the default duration — give it or --duration, not both');
 	const viewing = optChoice(args, 'viewing', viewingCases, 'accidental');
-	const alpha_rad = optQuantity(args, 'source-angle', { kind: 'angle', min_si: 0, max_si: Math.PI });
-	const oa = optQuantity(args, 'optic-aperture', { kind: 'length', above_si: 0, max_si: 10 });
-	const om = optQuantity(args, 'optic-magnification', { kind: 'dimensionless', above_si: 0, max_si: 1e4 });
-	const ot = optQuantity(args, 'optic-transmission', { kind: 'dimensionless', above_si: 0, max_si: 1 });
+	const alpha_rad = optQuantity(args, 'source-angle', { kind: 'angle', min_si: 0, max_si: Math.PI }, '1.5mrad');
+	const oa = optQuantity(args, 'optic-aperture', { kind: 'length', above_si: 0, max_si: 10 }, '50mm');
+	const om = optQuantity(args, 'optic-magnification', { kind: 'dimensionless', above_si: 0, max_si: 1e4 }, '7');
+	const ot = optQuantity(args, 'optic-transmission', { kind: 'dimensionless', above_si: 0, max_si: 1 }, '0.9');
 	const opticGiven = [oa, om].filter((x) => x !== undefined).length;
 	if (opticGiven === 1) throw new CliInputError(`--${oa === undefined ? 'optic-aperture' : 'optic-magnification'}: required with the other optic option — e.g. --optic-aperture 50mm --optic-magnification 7`);
 	const optic = oa !== undefined && om !== undefined ? { objective_m: oa, magnification: om, transmission: ot ?? 1 } : undefined;
-	const reflectance = optQuantity(args, 'reflectance', { kind: 'dimensionless', min_si: 0, max_si: 1 });
-	const viewingAngle_rad = optQuantity(args, 'viewing-angle', { kind: 'angle', min_si: 0, max_si: Math.PI / 2 });
+	const reflectance = optQuantity(args, 'reflectance', { kind: 'dimensionless', min_si: 0, max_si: 1 }, '0.9');
+	const viewingAngle_rad = optQuantity(args, 'viewing-angle', { kind: 'angle', min_si: 0, max_si: Math.PI / 2 }, '0deg');
 	if (viewingAngle_rad !== undefined && reflectance === undefined) throw new CliInputError('--reflectance: required with --viewing-angle — e.g. --reflectance 0.9');
 	const diffuse = reflectance !== undefined ? { reflectance, viewingAngle_rad: viewingAngle_rad ?? 0 } : undefined;
 	const a = assessBeam({ standard, wavelength_m, power_W, pulseEnergy_J, pulseWidth_s, repetitionRate_Hz, diameter_m, fullDivergence_rad, duration_s, viewing, alpha_rad, optic, diffuse });
@@ -117,6 +119,8 @@ export async function run(argv: string[]) {
 		rule: a.rule,
 		mechanism: a.mechanism,
 		limitSource: a.limitSource,
+		provenance: a.provenance,
+		provenanceLine: a.provenanceLine,
 		factors: a.factors,
 		pulseRules: a.pulseRules,
 		standard: a.standard,

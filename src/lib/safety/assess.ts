@@ -13,7 +13,7 @@ import { apertureAveragedIrradiance_W_m2, peakIrradiance_W_m2 } from './aperture
 import { defaultExposureDuration, evaluatePulseTrain, type ViewingCase } from './exposure';
 import { diffuseHazardDistance_m, nohdFormula, opticalGain, requiredOpticalDensity, type ViewingOptic } from './hazard';
 import { evaluateLimit, type StandardChoice } from './limits/index';
-import type { FactorReport, LimitResult, Mechanism, StandardId } from './limits/types';
+import type { FactorReport, LimitResult, Mechanism, Provenance, StandardId } from './limits/types';
 import { beamPathExposure, gaussianNohd_m, type RadiusFunction, type SampledBeam } from './propagated';
 
 /**
@@ -69,7 +69,11 @@ export interface BeamAssessment {
 	mpe_J_m2: number;
 	rule: string;
 	mechanism: Mechanism;
+	/** Table + row + the text it was read from (or why it is recalled), and the aperture's source. */
 	limitSource: string;
+	provenance: Provenance;
+	/** One line on where the limit comes from (e.g. IEC values recalled), shown with every figure. */
+	provenanceLine: string;
 	limitingAperture_m: number;
 	factors: FactorReport[];
 	/** Each pulse rule's per-pulse limit (pulse trains only). */
@@ -144,7 +148,7 @@ export function assessBeam(input: BeamAssessmentInput): BeamAssessment {
 		mpe_J_m2 = pt.perPulse_J_m2;
 		rule = pt.rule;
 		pulseRules = pt.rules.map(({ rule, applies, perPulse_J_m2, detail }) => ({ rule, applies, perPulse_J_m2, detail }));
-		lim = { ...pt.singlePulse, standardId: pt.standardId, standard: pt.standard, limitingAperture_m: pt.limitingAperture_m, factors: pt.factors, notes: pt.notes };
+		lim = { ...pt.singlePulse, standardId: pt.standardId, standard: pt.standard, limitingAperture_m: pt.limitingAperture_m, factors: pt.factors, notes: pt.notes, provenance: pt.provenance, limitSource: pt.limitSource, provenanceLine: pt.provenanceLine };
 		lim.mechanism = pt.rule === 'average power' ? pt.average.mechanism : pt.singlePulse.mechanism;
 	} else {
 		lim = evaluateLimit(standard, { wavelength_m, duration_s: t, target, alpha_rad: input.alpha_rad });
@@ -195,7 +199,9 @@ export function assessBeam(input: BeamAssessmentInput): BeamAssessment {
 		mpe_J_m2,
 		rule,
 		mechanism: lim.mechanism,
-		limitSource: lim.row.source,
+		limitSource: lim.limitSource,
+		provenance: lim.provenance,
+		provenanceLine: lim.provenanceLine,
 		limitingAperture_m: D,
 		factors: lim.factors,
 		pulseRules,

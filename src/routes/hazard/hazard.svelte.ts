@@ -50,6 +50,9 @@ export interface ProfileSeries {
 export interface BenchBeam {
 	ok: boolean;
 	message?: string;
+	/** The bench setup this beam comes from, named in the results and the printed summary. */
+	setupName?: string;
+	laserLabel?: string;
 	wavelength_m?: number;
 	path?: BeamPathSpec;
 	exitDiameter_m?: number;
@@ -108,8 +111,9 @@ export class HazardState {
 	bench: BenchBeam = $derived.by(() => {
 		if (this.s.beamFrom !== 'bench') return { ok: false };
 		const o = this.#store.outcome;
-		if (!o.ok) return { ok: false, message: 'The Bench setup has errors; fix them on the Bench to use its beam here.' };
-		return benchBeam(o.result);
+		const names = { setupName: this.#store.doc.name, laserLabel: this.#store.doc.source.label };
+		if (!o.ok) return { ok: false, ...names, message: `The Bench setup “${names.setupName}” has errors; fix them on the Bench to use its beam here.` };
+		return { ...benchBeam(o.result), ...names };
 	});
 
 	input: BeamAssessmentInput | null = $derived.by(() => {
