@@ -361,7 +361,22 @@ export function assessBeam(input: BeamAssessmentInput): BeamAssessment {
 		odExposure_W_m2: worstAveraged,
 		aided,
 		diffuse,
-		notes: lim.notes,
+		notes: nohdPhysicalNote(Math.max(nohdF, nohdB, aided?.hazardDistance_m ?? 0), lim.notes),
 		caution
 	};
+}
+
+/**
+ * Longest hazard distance reported as a plain number, m. Past it no laboratory or outdoor beam path
+ * exists (atmospheric attenuation and the Earth's curvature end any line of sight long before), so the
+ * figure only says "the beam is hazardous as far as it goes" (common practice: our stated bound).
+ */
+export const MAX_PHYSICAL_NOHD_m = 1e6;
+
+function nohdPhysicalNote(distance_m: number, notes: readonly string[]): readonly string[] {
+	if (distance_m <= MAX_PHYSICAL_NOHD_m) return notes;
+	return [
+		...notes,
+		`The hazard distance computed (${Number.isFinite(distance_m) ? `${+(distance_m / 1000).toPrecision(3)} km` : 'without bound'}) is beyond any physical beam path (more than ${MAX_PHYSICAL_NOHD_m / 1000} km): treat the beam as hazardous along its whole path, and check the inputs.`
+	];
 }
