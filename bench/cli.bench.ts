@@ -1,20 +1,16 @@
 /**
- * CLI start-up: wall time of `npx beamwright beam …` (median of 10, after one warm-up run) next to
- * `node -e 0` measured in the same run on the same machine; goal ≤ 2.5 × `node -e 0`. Also the
- * program alone (`node bin/beamwright.js beam …`, no npx in front), which shows what the compiled
- * CLI itself costs. Runs `npm run build:cli` first when dist/ is missing.
+ * CLI start-up: wall time of `npx beamwright beam …` next to `node -e 0` measured in the same run on the
+ * same machine (each once to warm the file cache, then 10 times, min / median / max); goal ≤ 2.5 ×
+ * `node -e 0`. Also the program alone (`node bin/beamwright.js beam …`, no npx in front), which shows
+ * what the compiled CLI itself costs. Runs `npm run build:cli` first when dist/ is missing.
  */
 import { spawnSync } from 'node:child_process';
 import { existsSync } from 'node:fs';
+import { ratioRow, refRow, spread, type Row, type Spread } from './stats';
 
 const beamArgs = ['beam', '--wavelength', '1064nm', '--waist', '0.5mm', '--at', '2m'];
 
-function median(xs: number[]): number {
-	const s = [...xs].sort((a, b) => a - b);
-	return s[Math.floor(s.length / 2)];
-}
-
-function wall_ms(cmd: string, args: string[], runs = 10): number {
+function wall_ms(cmd: string, args: string[], runs = 10): Spread {
 	spawnSync(cmd, args, { stdio: 'ignore' }); // warm-up: file cache
 	const t: number[] = [];
 	for (let i = 0; i < runs; i++) {
@@ -23,18 +19,17 @@ function wall_ms(cmd: string, args: string[], runs = 10): number {
 		t.push(performance.now() - t0);
 		if (r.status !== 0) throw new Error(`${cmd} ${args.join(' ')} failed: ${r.stderr}`);
 	}
-	return median(t);
+	return spread(t);
 }
 
-export async function run() {
+export async function run(): Promise<Row[]> {
 	if (!existsSync('dist/cli.js')) spawnSync('npm', ['run', 'build:cli'], { stdio: 'inherit' });
 	const node = wall_ms(process.execPath, ['-e', '0']);
 	const npx = wall_ms('npx', ['--no', 'beamwright', ...beamArgs]);
 	const bin = wall_ms(process.execPath, ['bin/beamwright.js', ...beamArgs]);
 	return [
-		{ figure: '`node -e 0` wall time (median of 10)', value: node, unit: 'ms', goal: 'reference' },
-		{ figure: '`npx beamwright beam …` wall time (median of 10)', value: npx, unit: 'ms', goal: '≤ 2.5 × node -e 0' },
-		{ figure: '`npx beamwright beam …` / `node -e 0`', value: npx / node, unit: '×', goal: '≤ 2.5', ok: npx / node <= 2.5 },
-		{ figure: '`node bin/beamwright.js beam …` / `node -e 0` (no npx)', value: bin / node, unit: '×', goal: '≤ 2.5', ok: bin / node <= 2.5 }
+		refRow('`node -e 0` wall time (10 runs)', 'ms', node),
+		ratioRow('`npx beamwright beam …` wall time (10 runs)', 'ms', npx, 'node -e 0', node, 2.5),
+		ratioRow('`node bin/beamwright.js beam …` (no npx)', 'ms', bin, 'node -e 0', node, 2.5)
 	];
 }

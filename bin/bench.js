@@ -1,21 +1,36 @@
 #!/usr/bin/env node
 // `npm run bench`: prints every figure the issues name. Each bench/*.bench.ts exports
-// `run(): Promise<Array<{ figure: string, value: number, unit: string, goal: string, ok?: boolean }>>`.
+// `run(): Promise<Row[]>` (bench/stats.ts): figure, min / median / max, the reference measured in the
+// same run, the ratio to it, and the goal stated as that ratio. Verdicts judge the ratio, so they hold
+// when other processes load the machine; the absolute figures are printed only beside their reference.
+// `npm run bench -- browser` runs the files whose name contains "browser".
 import { register } from 'tsx/esm/api';
 import { readdirSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { dirname, join } from 'node:path';
+import { loadavg } from 'node:os';
 
 register();
 const dir = join(dirname(fileURLToPath(import.meta.url)), '..', 'bench');
 const only = process.argv[2];
 const files = readdirSync(dir).filter((f) => f.endsWith('.bench.ts') && (!only || f.includes(only))).sort();
+
+function fmt(v) {
+	if (v === undefined || v === null || !Number.isFinite(v)) return '–';
+	return Math.abs(v) >= 1e5 || (Math.abs(v) < 1e-2 && v !== 0) ? v.toExponential(2) : String(Number(v.toPrecision(3)));
+}
+
+console.log(`load average at start: ${loadavg().map((x) => x.toFixed(2)).join(' ')} (2 cores: above ~1 the absolute figures are slowed; the ratios still hold)`);
+console.log(`${'file'.padEnd(8)} ${'figure'.padEnd(62)} ${'min / median / max'.padStart(24)} ${'unit'.padEnd(7)} ${'reference (median)'.padEnd(26)} ${'ratio'.padStart(7)}  goal`);
 for (const f of files) {
 	const mod = await import(join(dir, f));
 	const rows = await mod.run();
 	for (const r of rows) {
-		const v = Math.abs(r.value) >= 1e5 || (Math.abs(r.value) < 1e-2 && r.value !== 0) ? r.value.toExponential(3) : Number(r.value.toPrecision(4));
+		const spreadText = r.min !== undefined ? `${fmt(r.min)} / ${fmt(r.value)} / ${fmt(r.max)}` : fmt(r.value);
+		const refText = r.ref ? `${r.ref.name} ${fmt(r.ref.value)} ${r.ref.unit ?? r.unit}` : '';
+		const ratioText = r.ratio !== undefined ? `${fmt(r.ratio)}×` : '';
 		const verdict = r.ok === undefined ? '' : r.ok ? '  [meets goal]' : '  [MISSES goal]';
-		console.log(`${f.replace('.bench.ts', '').padEnd(10)} ${r.figure.padEnd(58)} ${String(v).padStart(12)} ${r.unit.padEnd(8)} goal ${r.goal}${verdict}`);
+		console.log(`${f.replace('.bench.ts', '').padEnd(8)} ${r.figure.padEnd(62)} ${spreadText.padStart(24)} ${r.unit.padEnd(7)} ${refText.padEnd(26)} ${ratioText.padStart(7)}  ${r.goal}${verdict}`);
 	}
 }
+console.log(`load average at end: ${loadavg().map((x) => x.toFixed(2)).join(' ')}`);

@@ -1,5 +1,7 @@
 #!/usr/bin/env node
 // Serves the static build (./build) on localhost. No dependencies: node:http only.
+// Text files are sent compressed when the browser accepts it: brotli (`<file>.br`) first, then gzip
+// (`<file>.gz`), both written at build time by scripts/compress.js; a file without them goes as is.
 // Usage: node scripts/serve.js [--port 4173] [--quiet]
 import { createServer } from 'node:http';
 import { readFile, stat } from 'node:fs/promises';
@@ -43,6 +45,16 @@ async function resolveFile(urlPath) {
 	}
 }
 
+/** True when the Accept-Encoding header lists `token` with a q above 0. */
+function accepts(header, token) {
+	return header.split(',').some((part) => {
+		const [name, ...params] = part.trim().split(';');
+		if (name.trim().toLowerCase() !== token) return false;
+		const q = params.map((p) => p.trim()).find((p) => p.startsWith('q='));
+		return q === undefined || Number(q.slice(2)) > 0;
+	});
+}
+
 const server = createServer(async (req, res) => {
 	const file = await resolveFile(req.url ?? '/');
 	if (!file) {
@@ -50,12 +62,27 @@ const server = createServer(async (req, res) => {
 		res.end('not found');
 		return;
 	}
-	const body = await readFile(file);
-	res.writeHead(200, {
+	const accept = String(req.headers['accept-encoding'] ?? '');
+	const headers = {
 		'content-type': types[extname(file)] ?? 'application/octet-stream',
-		'cache-control': file.includes('/_app/immutable/') ? 'public, max-age=31536000, immutable' : 'no-cache'
-	});
-	res.end(body);
+		'cache-control': file.includes('/_app/immutable/') ? 'public, max-age=31536000, immutable' : 'no-cache',
+		vary: 'Accept-Encoding'
+	};
+	let body = null;
+	for (const [token, ext] of [['br', '.br'], ['gzip', '.gz']]) {
+		if (!accepts(accept, token)) continue;
+		try {
+			body = await readFile(file + ext);
+			headers['content-encoding'] = token;
+			break;
+		} catch {
+			/* no precompressed form: try the next one */
+		}
+	}
+	body ??= await readFile(file);
+	headers['content-length'] = body.length;
+	res.writeHead(200, headers);
+	res.end(req.method === 'HEAD' ? undefined : body);
 });
 
 // Without --port, a busy default port moves on to the next free one.
