@@ -9,7 +9,7 @@ import { compileSetup, type FieldError } from './compile';
 import { demoSetup } from './demo';
 import { parseSetupJson, type SetupDoc } from './schema';
 import { propagate, type Propagation } from '../optics/train';
-import { loadUnitEngine, onUnitEngineReady, unitEngineReady } from '../units/parse';
+import { onUnitEngineReady, unitEngineReady, unitEngineWasNeeded } from '../units/parse';
 import { BoundedHistory, Persistence, type KeptCopy, type KeyValueStorage } from './persist';
 
 export { STORAGE_KEY, type KeyValueStorage } from './persist';
@@ -81,7 +81,10 @@ export class SetupStore {
 
 	constructor(storage: KeyValueStorage | null) {
 		this.#persist = new Persistence(storage);
-		if (!unitEngineReady()) onUnitEngineReady(() => this.unitsVersion++);
+		// Re-read the fields only when some text was waiting for the unit engine (no re-validation storm otherwise).
+		if (!unitEngineReady()) onUnitEngineReady(() => {
+			if (unitEngineWasNeeded()) this.unitsVersion++;
+		});
 		const loaded = this.#persist.load((text) => {
 			const r = parseSetupJson(text);
 			return r.ok ? null : r.reason;
@@ -266,11 +269,9 @@ export function getSetupStore(): SetupStore {
 		const storage = typeof localStorage !== 'undefined' ? localStorage : null;
 		shared = createDetachedStore(storage);
 		if (typeof window !== 'undefined') {
-			// Fetch the full unit engine at the user's first key press, or 1.5 s after start, whichever
-			// comes first — never on the path to the first view.
-			const load = () => void loadUnitEngine();
-			document.addEventListener('keydown', load, { once: true });
-			setTimeout(load, 1500);
+			// The full unit engine (mathjs) is fetched and parsed only when some text needs it: a parse
+			// that the fast path cannot read comes back `pending` and starts the load (units/parse.ts).
+			// Nothing loads it on a timer, so no long task follows the first view of a setup in everyday units.
 			window.addEventListener('pagehide', () => shared?.flush());
 			shared.watchOtherTabs();
 			document.addEventListener('visibilitychange', () => {
