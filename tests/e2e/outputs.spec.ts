@@ -133,3 +133,34 @@ test('after Add element the new element\'s first field has the focus', async ({ 
 	await page.getByTestId('add-element').click();
 	await expect(page.locator('li.el.selected input').first()).toBeFocused();
 });
+
+test('Measure: the fit report saves as CSV and JSON with the numbers, the wavelength and the plan check shown', async ({ page }) => {
+	await page.goto('/measure/');
+	await page.getByTestId('load-demo-widths').click();
+	await page.getByTestId('m-wavelength').fill('1064 nm');
+	await expect(page.getByTestId('fit-x-m2')).toHaveText(/±/);
+	const csv = await readCsv(await download(page, 'fit-csv'));
+	expect(csv.header.join('\n')).toContain('Wavelength (vacuum): 1064 nm');
+	expect(csv.cols.slice(0, 11)).toEqual(['axis', 'd0_mm', 'u_d0_mm', 'z0_mm', 'u_z0_mm', 'full_divergence_mrad', 'u_full_divergence_mrad', 'zR_mm', 'u_zR_mm', 'M2', 'u_M2']);
+	const col = (name: string) => csv.cols.indexOf(name);
+	for (const axis of ['x', 'y']) {
+		const row = csv.rows.find((r) => r[0] === axis)!;
+		// The page shows "value ± u unit" with 4 significant digits on the value.
+		const shown = (id: string) => page.getByTestId(`fit-${axis}-${id}`).innerText();
+		const [d0v, , d0u] = (await shown('d0_m')).replace('−', '-').split(' ');
+		close4(Number(row[col('d0_mm')]) / 1000, metres(`${d0v} ${(await shown('d0_m')).split(' ').pop()}`));
+		expect(d0u).toBeDefined();
+		const m2 = parseFloat(await shown('m2'));
+		close4(Number(row[col('M2')]), m2);
+		const plan = await page.getByTestId('plan-check').innerText();
+		expect(plan).toContain(`${axis} axis: ${row[col('plan')] === 'meets the rule' ? '✓' : ''}`);
+	}
+	const jsonFile = await download(page, 'fit-json');
+	const j = JSON.parse(readFileSync((await jsonFile.path())!, 'utf8'));
+	expect(j.format).toBe('beamwright-fit-report');
+	expect(j.wavelength_m).toBeCloseTo(1064e-9, 15);
+	const xRow = csv.rows.find((r) => r[0] === 'x')!;
+	close4(j.axes.x.d0_m * 1000, Number(xRow[col('d0_mm')]));
+	close4(j.axes.x.m2, Number(xRow[col('M2')]));
+	expect(typeof j.axes.x.plan.ok).toBe('boolean');
+});
