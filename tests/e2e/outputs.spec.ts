@@ -164,3 +164,48 @@ test('Measure: the fit report saves as CSV and JSON with the numbers, the wavele
 	close4(j.axes.x.m2, Number(xRow[col('M2')]));
 	expect(typeof j.axes.x.plan.ok).toBe('boolean');
 });
+
+test('Match: focus lands on the results; the ranked solutions save as CSV with the numbers shown', async ({ page }) => {
+	await page.goto('/match/');
+	await page.getByTestId('target-waist').check();
+	await page.getByTestId('target-at').fill('700 mm');
+	await page.getByTestId('target-wx').fill('60 µm');
+	await page.getByTestId('match-run').click();
+	await expect(page.getByTestId('match-progress')).toContainText(/Done/, { timeout: 30_000 });
+	await expect(page.getByTestId('match-results')).toBeFocused();
+	const rows = page.getByTestId('match-row');
+	const shown = await rows.evaluateAll((trs) => trs.map((tr) => [...tr.querySelectorAll('td')].map((td) => (td as HTMLElement).innerText)));
+	const csv = await readCsv(await download(page, 'match-csv'));
+	expect(csv.rows.length).toBe(shown.length);
+	const col = (n: string) => csv.cols.indexOf(n);
+	csv.rows.forEach((r, i) => {
+		expect(r[0]).toBe(String(i + 1));
+		// "Total" column: efficiency in percent as shown (4 significant digits or fewer).
+		const total = parseFloat(shown[i][6]);
+		expect(Math.abs(Number(r[col('efficiency_percent')]) - total)).toBeLessThanOrEqual(0.05 + 1e-3 * total);
+		const firstLens = shown[i][1].split('\n')[0]; // "L1 <label>: f at z"
+		const m = firstLens.match(/: (−?[\d.]+ m?m) at ([\d.]+ m?m)/)!;
+		close4(Number(r[col('lens1_f_mm')]) / 1000, metres(m[1].replace('−', '-')));
+		close4(Number(r[col('lens1_z_mm')]) / 1000, metres(m[2]));
+	});
+});
+
+test('Match: an expander goes on the bench with its spacing, and the expander table saves as CSV', async ({ page }) => {
+	await page.goto('/match/');
+	await page.locator('nav[aria-label="On this page"]').getByRole('link', { name: 'Beam expanders' }).click();
+	await expect(page).toHaveURL(/#exp-h$/);
+	const first = page.getByTestId('expander-row').first();
+	await expect(first).toBeVisible();
+	const csv = await readCsv(await download(page, 'expanders-csv'));
+	const row = csv.rows[0];
+	const spacing_mm = Number(row[csv.cols.indexOf('spacing_mm')]);
+	const at_mm = Number((await page.getByTestId('exp-at').inputValue()).replace(/\s*mm$/, ''));
+	await first.getByTestId('expander-apply').click();
+	await expect(page).toHaveURL(/\/$/);
+	const table = page.getByTestId('element-table');
+	await expect(table).toContainText('EX1');
+	await expect(table).toContainText('EX2');
+	const ex = await table.locator('tbody tr').evaluateAll((trs) => trs.map((tr) => [...tr.querySelectorAll('td')].map((td) => td.textContent ?? '')).filter((c) => c[0].startsWith('EX')));
+	close4(metres(ex[0][1]), at_mm / 1000);
+	close4(metres(ex[1][1]), (at_mm + spacing_mm) / 1000);
+});
