@@ -83,7 +83,9 @@ test('bad numbers name the field and the range, keep the text, and survive a rel
 	await expect(page.getByTestId('match-run')).toBeDisabled();
 	await page.getByTestId('inv-focal-0').fill('0 mm');
 	await expect(page.getByText(/focal length must be at least 1 mm/).first()).toBeVisible();
-	await page.waitForTimeout(400);
+	// Wait for the autosave to hold both edits (no fixed sleep).
+	await expect.poll(() => page.evaluate(() => Object.values(localStorage).join('\n'))).toContain('0 mm');
+	await expect.poll(() => page.evaluate(() => Object.values(localStorage).join('\n'))).toContain('1e9 m');
 	await page.reload();
 	await expect(page.getByTestId('rail-to')).toHaveValue('1e9 m');
 	await expect(page.getByTestId('inv-focal-0')).toHaveValue('0 mm');
@@ -176,4 +178,13 @@ test('two-mirror cavity with a lens inside; expander read-outs for both axes of 
 	const row = page.getByTestId('expander-row').first();
 	await expect(row).toContainText('○');
 	await expect(row.getByTestId('expander-y').first()).toContainText(/□ \d/);
+});
+
+test('a read-out that cannot compute says why instead of showing nothing', async ({ page }) => {
+	await page.getByTestId('exp-min').fill('abc');
+	await expect(page.getByTestId('expanders-why')).toContainText('Fix the expander fields');
+	await page.getByTestId('exp-min').fill('2');
+	await expect(page.getByTestId('expanders')).toBeVisible();
+	await page.getByTestId('target-at').fill('5 kg');
+	await expect(page.getByTestId('single-lens-why')).toContainText('not valid yet');
 });

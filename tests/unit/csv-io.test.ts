@@ -24,7 +24,7 @@ describe('readCsv', () => {
 		expect(r.ok && r.records).toEqual([
 			{ line: 1, cells: ['a', 'b'] },
 			{ line: 2, cells: ['x, y', 'say "hi"'] },
-			{ line: 3, cells: ['two\nlines', 'z'] },
+			{ line: 3, lineEnd: 4, cells: ['two\nlines', 'z'] },
 			{ line: 7, cells: ['last', '1'] }
 		]);
 	});
@@ -86,7 +86,10 @@ describe('exports are safe to open in a spreadsheet (OWASP CSV Injection)', () =
 
 describe('lab inventory', () => {
 	it('an unbalanced quote is reported with its line and nothing is half-imported (was: 1 of 8 lasers, no issue)', () => {
-		const broken = demoLab.replace('Kestrel green pointer', '"Kestrel green pointer');
+		// Open a quote at the start of line 4 and never close it.
+		const lines = demoLab.split('\n');
+		lines[3] = '"' + lines[3];
+		const broken = lines.join('\n');
 		const r = parseInventoryCsv(broken);
 		expect(r.lasers).toEqual([]);
 		expect(r.refused).toMatch(/line 4: .*quote/);

@@ -4,7 +4,7 @@
  * position along one axis: error-function (or Gaussian) least-squares fit with uncertainties, and the
  * 10/90 % and 16/84 % clip distances converted to D4σ with the Gaussian factors.
  */
-import { readFile } from 'node:fs/promises';
+import { readText } from '../readText';
 import { CliInputError, allowOnly, optChoice, optString, parseArgs } from '../args';
 import { parseQuantity } from '../../lib/units/parse';
 import { parseScanTable } from '../../lib/io/scanTable';
@@ -24,16 +24,15 @@ function powerScale(option: string, unit: string): number {
 
 export async function run(argv: string[]) {
 	const args = parseArgs(argv);
-	allowOnly(args, ['kind', 'x-unit', 'p-unit']);
+	allowOnly(args, ['kind', 'x-unit', 'p-unit'], { files: { max: 1, label: 'scan file', example: 'npx beamwright knife scan.csv' } });
 	const file = args.positionals[0];
 	if (!file) throw new CliInputError('scan file: required — e.g. npx beamwright knife scan.csv');
-	if (args.positionals.length > 1) throw new CliInputError(`scan file: one file only — got ${args.positionals.length}: ${args.positionals.join(', ')}`);
 	const kind = optChoice<ScanKind>(args, 'kind', ['knife', 'slit'], 'knife');
 	const xUnit = optString(args, 'x-unit');
 	const pUnit = optString(args, 'p-unit');
 	let text: string;
 	try {
-		text = await readFile(file, 'utf8');
+		text = await readText(file);
 	} catch {
 		throw new CliInputError(`scan file: cannot read "${file}" — give the path of a CSV file with columns x and P`);
 	}
