@@ -6,6 +6,7 @@ import { parseQuantity, type FieldSpec } from '../units/parse';
 import type { AxisSource, AxisSourceSpec, SourceSpec } from '../optics/source';
 import type { TrainElement, TrainInput } from '../optics/train';
 import { kindByName, parseParam } from './elementKinds';
+import { autoPlotEnd } from './plotRange';
 import type { AxisSourceDoc, SetupDoc } from './schema';
 
 export interface FieldError {
@@ -14,7 +15,8 @@ export interface FieldError {
 	message: string;
 }
 
-export type Compiled = { ok: true; input: TrainInput } | { ok: false; errors: FieldError[] };
+/** `autoEnd`: "Plot to" was left empty and `input.end_m` is the automatic end (plotRange.ts). */
+export type Compiled = { ok: true; input: TrainInput; autoEnd?: boolean } | { ok: false; errors: FieldError[] };
 
 export const sourceFields = {
 	wavelength: { label: 'Wavelength', kind: 'length', min_si: 100e-9, max_si: 1e-3 },
@@ -98,7 +100,10 @@ export function compileSetup(doc: SetupDoc): Compiled {
 		if (e.aperture.trim() !== '') aperture = collect(errors, `elements.${e.id}.aperture`, e.aperture, { ...apertureField, label: `${e.label || def.name} clear aperture` });
 		if (errors.length === 0) elements.push({ id: e.id, label: e.label || def.name, z_m: z, aperture_m: aperture, spec: def.build(values) });
 	}
-	const end_m = collect(errors, 'view.end', doc.view.end, endField);
+	// An empty "Plot to" means automatic: past the last element to the last real waist.
+	const autoEnd = doc.view.end.trim() === '';
+	const end_m = autoEnd ? 0 : collect(errors, 'view.end', doc.view.end, endField);
 	if (errors.length) return { ok: false, errors };
+	if (autoEnd) return { ok: true, input: { source, elements, end_m: autoPlotEnd({ source, elements, end_m }) }, autoEnd };
 	return { ok: true, input: { source, elements, end_m } };
 }

@@ -17,6 +17,7 @@ import {
 	type WidthsResult
 } from '$lib/optics/iso11146/index';
 import type { SetupStore } from '$lib/document/store.svelte';
+import { repairSection } from '$lib/document/repair';
 
 /** Length units offered for z and diameters, metres per unit. */
 export const lengthUnits = [
@@ -34,15 +35,30 @@ export const MeasureSchema = v.object({
 	zUnit: v.picklist(unitKeys),
 	dUnit: v.picklist(unitKeys),
 	wavelength: v.string(),
+	/** 'bench': the wavelength is the bench laser's (live); 'typed': the text in `wavelength`. */
+	wavelengthFrom: v.picklist(['bench', 'typed']),
 	weighting: v.picklist(['relative', 'plain']),
 	/** Where the measurement's z = 0 lies on the bench axis. */
 	zOffset: v.string(),
-	pixel: v.string()
+	pixel: v.string(),
+	/** Knife-edge or slit scans typed or pasted by the user (text kept as entered). */
+	knife: v.optional(
+		v.array(
+			v.object({
+				axis: v.picklist(['x', 'y']),
+				kind: v.picklist(['knife', 'slit']),
+				z: v.string(),
+				xUnit: v.picklist(unitKeys),
+				scan: v.string()
+			})
+		),
+		[]
+	)
 });
 export type MeasureDoc = v.InferOutput<typeof MeasureSchema>;
 
 export function defaultMeasure(): MeasureDoc {
-	return { widths: '', zUnit: 'mm', dUnit: 'um', wavelength: '1064 nm', weighting: 'relative', zOffset: '0 mm', pixel: '5.5 um' };
+	return { widths: '', zUnit: 'mm', dUnit: 'um', wavelength: '', wavelengthFrom: 'bench', weighting: 'relative', zOffset: '0 mm', pixel: '5.5 um', knife: [] };
 }
 
 export const fields = {
@@ -79,9 +95,11 @@ export class MeasureState {
 	read = $derived.by((): { doc: MeasureDoc; problem: string | null } => {
 		const raw = this.#store.doc.measure;
 		if (raw === undefined) return { doc: defaultMeasure(), problem: null };
-		const r = v.safeParse(MeasureSchema, { ...defaultMeasure(), ...raw });
-		if (r.success) return { doc: r.output, problem: null };
-		return { doc: defaultMeasure(), problem: `The saved Measure inputs could not be read (${r.issues[0].message}); defaults are shown.` };
+		// A section saved before the wavelength could follow the bench keeps the wavelength it typed.
+		const from = (raw as Record<string, unknown>).wavelengthFrom ?? ((raw as Record<string, unknown>).wavelength ? 'typed' : 'bench');
+		// Field by field: one unreadable field is reset (its text kept under `unreadable`), the rest stays.
+		const r = repairSection(MeasureSchema as never, { ...defaultMeasure(), ...raw, wavelengthFrom: from }, defaultMeasure(), 'Measure inputs');
+		return { doc: r.section as MeasureDoc, problem: r.problem };
 	});
 	get doc(): MeasureDoc {
 		return this.read.doc;
@@ -98,10 +116,42 @@ export class MeasureState {
 		);
 	}
 
+	/** The bench laser's wavelength as typed on the Bench, and parsed. */
+	benchWavelengthText = $derived.by(() => this.#store.doc.source.wavelength);
+	benchWavelength = $derived.by(() => {
+		void this.#store.unitsVersion;
+		return parseQuantity(this.benchWavelengthText, fields.wavelength);
+	});
+	/** True while the wavelength follows the bench laser (until the user types another). */
+	followsBench = $derived(this.doc.wavelengthFrom === 'bench');
+	/** The wavelength text in use: the bench laser's while following, else what the user typed. */
+	wavelengthText = $derived(this.followsBench ? this.benchWavelengthText : this.doc.wavelength);
 	wavelength = $derived.by(() => {
 		void this.#store.unitsVersion;
-		return parseQuantity(this.doc.wavelength, fields.wavelength);
+		return parseQuantity(this.wavelengthText, fields.wavelength);
 	});
+	/** Set when a typed wavelength differs from the bench laser's (both valid). */
+	differsFromBench = $derived.by(() => {
+		const w = this.wavelength;
+		const b = this.benchWavelength;
+		if (this.followsBench || !w.ok || !b.ok) return false;
+		return Math.abs(w.value_si - b.value_si) > 1e-9 * b.value_si;
+	});
+
+	/** Type a wavelength of one's own (stops following the bench). */
+	setWavelength(text: string): void {
+		const next = { ...this.doc, wavelength: text, wavelengthFrom: 'typed' as const };
+		this.#store.update((d) => {
+			d.measure = next;
+		}, 'measure.wavelength');
+	}
+	/** Follow the bench laser's wavelength again. */
+	followBench(): void {
+		const next = { ...this.doc, wavelength: '', wavelengthFrom: 'bench' as const };
+		this.#store.update((d) => {
+			d.measure = next;
+		});
+	}
 	zOffset = $derived.by(() => {
 		void this.#store.unitsVersion;
 		return parseQuantity(this.doc.zOffset, fields.zOffset);
@@ -163,8 +213,13 @@ export class MeasureState {
 				out.push({ name, z_m: z, d_m: d, residual_m: [], fitZ_m: new Float64Array(0), fitD_m: new Float64Array(0), fit: null });
 				continue;
 			}
-			const lo = Math.min(...z, f.z0_m);
-			const hi = Math.max(...z, f.z0_m);
+			// Loops, not Math.min(...z): spreading ~10⁵ planes overflows the call stack.
+			let lo = f.z0_m;
+			let hi = f.z0_m;
+			for (const zi of z) {
+				if (zi < lo) lo = zi;
+				if (zi > hi) hi = zi;
+			}
 			const pad = 0.04 * (hi - lo || 1e-3);
 			const s = sampleCaustic(f, lo - pad, hi + pad, 240);
 			out.push({ name, z_m: z, d_m: d, residual_m: f.residuals.map((q) => q.residual_m), fitZ_m: s.z_m, fitD_m: s.d_m, fit: f });
@@ -186,11 +241,26 @@ export class MeasureState {
 		}
 	});
 
-	/** Make the fitted beam the bench's source (text fields keep units). Returns an error message or null. */
-	sendToBench(): string | null {
+	/**
+	 * The wavelength the current fit was made at, when it is not the bench laser's: sending the fit to
+	 * the bench then changes the bench wavelength, which the page asks about first.
+	 */
+	get wavelengthChange(): { fit: string; bench: string } | null {
+		if (!this.differsFromBench) return null;
+		return { fit: this.wavelengthText, bench: this.benchWavelengthText };
+	}
+
+	/**
+	 * Make the fitted beam the bench's source (text fields keep units), at the wavelength the fit was
+	 * made at. When that differs from the bench laser's, nothing changes unless `changeWavelength`.
+	 * Returns an error message or null.
+	 */
+	sendToBench(changeWavelength = false): string | null {
 		const s = this.source;
 		if (!s) return 'Enter measured widths first.';
 		if (!s.ok) return s.message;
+		if (this.wavelengthChange && !changeWavelength) return `The fit was made at ${this.wavelengthText}; the bench laser is ${this.benchWavelengthText}. Confirm the change of the bench wavelength first.`;
+		const fitWavelength = this.wavelengthText;
 		const src = s.value.source;
 		const text = (m: number) => formatSI(m, 'm', 5);
 		const axis = (a: typeof src.x) => ({
@@ -203,13 +273,45 @@ export class MeasureState {
 		const columns = this.result && this.result.ok ? this.result.value.columns : 'd';
 		this.#store.update((d) => {
 			d.source.label = 'Measured beam (Measure workspace)';
-			d.source.wavelength = this.doc.wavelength;
+			d.source.wavelength = fitWavelength;
 			d.source.index = '1';
 			d.source.astigmatic = columns === 'xy';
 			d.source.x = { ...d.source.x, kind: 'waist', ...x };
 			d.source.y = { ...d.source.y, kind: 'waist', ...y };
 		});
 		return null;
+	}
+
+	/**
+	 * Append knife-edge widths: scans at the same z for x and y make one plane z, dx, dy; when every
+	 * scan is of one axis and the table is empty or has one diameter column, rows z, d. Returns an
+	 * error message or null.
+	 */
+	addKnifePlanes(scans: Array<{ z_m: number; axis: 'x' | 'y'; d_m: number }>): string | null {
+		if (scans.length === 0) return 'No fitted scan with a valid z to add.';
+		const t = this.table;
+		const axes = new Set(scans.map((s) => s.axis));
+		const oneAxis = axes.size === 1;
+		const tableCols = t && t.ok ? t.value.columns : null;
+		if (oneAxis && tableCols !== 'xy') {
+			const zu = t && t.ok ? t.value.zUnit_m : unitMetres(this.doc.zUnit);
+			const du = t && t.ok ? t.value.dUnit_m : unitMetres(this.doc.dUnit);
+			const num = (x: number) => Number(x.toPrecision(6)).toString();
+			const lines = scans.map((s) => `${num(s.z_m / zu)},${num(s.d_m / du)}`);
+			const base = this.doc.widths.trimEnd();
+			this.set('widths', (base === '' ? 'z,d\n' : base + '\n') + lines.join('\n') + '\n', true);
+			return null;
+		}
+		const byZ = new Map<number, { x?: number; y?: number }>();
+		for (const s of scans) {
+			const e = byZ.get(s.z_m) ?? {};
+			if (e[s.axis] !== undefined) return `Two ${s.axis} scans at the same z (${formatSI(s.z_m, 'm', 4)}): keep one.`;
+			e[s.axis] = s.d_m;
+			byZ.set(s.z_m, e);
+		}
+		const lonely = [...byZ.entries()].filter(([, e]) => e.x === undefined || e.y === undefined).map(([z]) => formatSI(z, 'm', 4));
+		if (lonely.length) return `A table with dx and dy needs an x and a y scan at each z; missing a partner at z = ${lonely.join(', ')}.`;
+		return this.addPlanes([...byZ.entries()].map(([z_m, e]) => ({ z_m, dx_m: e.x!, dy_m: e.y! })));
 	}
 
 	/**

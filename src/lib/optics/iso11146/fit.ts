@@ -8,7 +8,7 @@
  *   zR = √(4ac − b²)/(2c) = d0/Θ       Rayleigh length
  *   M² = π/(8λ)·√(4ac − b²) = π·d0·Θ/(4λ)
  *
- * Conventions (DESIGN.md): d is the second-moment (D4σ) diameter = 2w, SI units (m, rad), x and y
+ * Conventions (DEVELOPERS.md): d is the second-moment (D4σ) diameter = 2w, SI units (m, rad), x and y
  * are fitted independently (simple astigmatism). Each figure carries a standard uncertainty
  * propagated from the covariance of (a, b, c) to first order (GUM, JCGM 100:2008, eq. 13).
  *
