@@ -137,7 +137,7 @@ export function defaultMatchSection(): MatchSection {
 export function emptyMatchSection(): MatchSection {
 	return {
 		input: { from: 'source' },
-		target: { kind: 'waist', at: '', wx: '', wy: '', r1: '', r2: '', length: '', lensF: '', lensAt: '', ring: { type: 'ring', mirrors: [], input: 0 }, fiberBy: 'mfd', mfd: '', coreRadius: '', na: '' },
+		target: { kind: 'waist', at: '', wx: '', wy: '', r1: '', r2: '', length: '', lensF: '', lensAt: '', substrate: defaultSubstrate(), ring: { type: 'ring', mirrors: [], input: 0 }, fiberBy: 'mfd', mfd: '', coreRadius: '', na: '' },
 		inventory: [],
 		rail: { from: '', to: '' },
 		slots: [],
