@@ -37,7 +37,7 @@ export interface AxisWaist {
 /**
  * Waist from a diameter d at plane z_p and full divergence Θ: w0 = M²λ/(π·n·Θ/2)... here M² is
  * already inside Θ, so w0 = λ_eff/(π·n·θ) with θ = Θ/2 and λ_eff = M²λ (Siegman 1986, eq. 17.16),
- * then |z_p − z0| = zR·sqrt((w/w0)² − 1) (Kogelnik & Li 1966, eq. 20).
+ * then |z_p − z0| = zR·sqrt((w/w0)² − 1) (Kogelnik & Li 1966, eq. 20, number from memory).
  * Example: d = 2 mm, Θ = 1 mrad, λ = 1064 nm, M² = 1 → w0 = 0.6773 mm, waist 1.4713 m behind the plane.
  */
 export function waistFromDivergence(
