@@ -11,7 +11,7 @@
  */
 import * as v from 'valibot';
 import { parseQuantity, type FieldSpec } from '../units/parse';
-import { compileElement, freeSpaceMatrix, identity, mul, type Mat2 } from '../optics/elements';
+import { compileElement, freeSpaceMatrix, identity, mul, type Mat2, type Step } from '../optics/elements';
 import { propagate, beamAt, type TrainInput } from '../optics/train';
 import { cavitySpectrum, type CavitySpectrum } from '../optics/spectrum';
 import { modeContent, axisModeContent, sizeRatioFromBeta, waistDistanceFromBeta, type ModeContent } from '../optics/modeContent';
@@ -130,6 +130,9 @@ interface Ctx {
 	train: TrainInput;
 	geometry: CavityGeometry;
 	lam: number;
+	/** Cached: the source's beam before the first element, and the elements compiled in z order. */
+	base?: { z_m: number; x: QHat; y: QHat; m2x: number; m2y: number };
+	compiled?: { id: string; z_m: number; steps: Step[]; length_m: number; indexAfter: number }[];
 }
 
 /** Ray matrix (reduced; plain in air) from bench position z0 to z1 through the train's elements. */
@@ -162,14 +165,89 @@ export function rayMatrix(train: TrainInput, z0_m: number, z1_m: number): { x: M
 	return { x: mul(f, x), y: mul(f, y) };
 }
 
-/** The beam's q̂ per axis at the target plane, with one element moved by `shift_m`. */
+/**
+ * The beam's q̂ per axis arriving at the target plane (the cavity's input mirror itself and anything at or
+ * after it left out), with one element moved by `shift_m`. The source's beam is propagated once to the
+ * first element; from there the ray matrices of the (moved) train carry it to the target.
+ */
 function beamAtTarget(ctx: Ctx, lensId: string | null, shift_m: number): { x: QHat; y: QHat; m2x: number; m2y: number } {
-	const elements = ctx.train.elements.map((e) => (lensId !== null && e.id === lensId ? { ...e, z_m: e.z_m + shift_m } : e));
 	const at = ctx.geometry.at_m;
-	const r = propagate({ ...ctx.train, elements, end_m: Math.max(ctx.train.end_m, at + 0.01) });
-	const b = beamAt(r, at);
-	if (Math.abs(b.x.index - 1) > 1e-9) throw new RangeError(`the beam at the cavity's input mirror is in a medium of index ${b.x.index}; it must arrive in air`);
-	return { x: b.x.q, y: b.y.q, m2x: r.m2x, m2y: r.m2y };
+	const base = ctx.base ?? (ctx.base = sourceBeam(ctx));
+	let first = base.z_m;
+	for (const e of ctx.train.elements) first = Math.min(first, e.id === lensId ? e.z_m + shift_m : e.z_m);
+	if (first < base.z_m) {
+		// A moved element now sits before the reference plane: propagate from the source directly.
+		const elements = ctx.train.elements.map((e) => (lensId !== null && e.id === lensId ? { ...e, z_m: e.z_m + shift_m } : e)).filter((e) => e.z_m < at);
+		const r = propagate({ ...ctx.train, elements, end_m: Math.max(ctx.train.end_m, at + 0.01) });
+		const b = beamAt(r, at);
+		return { x: b.x.q, y: b.y.q, m2x: r.m2x, m2y: r.m2y };
+	}
+	const m = compiledRayMatrix(ctx, lensId, shift_m, base.z_m, at);
+	return { x: applyQ(m.x, base.x), y: applyQ(m.y, base.y), m2x: base.m2x, m2y: base.m2y };
+}
+
+function applyQ(mm: Mat2, q: QHat): QHat {
+	const [A, B, C, D] = mm;
+	const nr = A * q.re + B;
+	const ni = A * q.im;
+	const dr = C * q.re + D;
+	const di = C * q.im;
+	const den = dr * dr + di * di;
+	return { re: (nr * dr + ni * di) / den, im: (ni * dr - nr * di) / den };
+}
+
+/** rayMatrix over the train's elements compiled once (cached on ctx), with one element moved. Air before the first element. */
+function compiledRayMatrix(ctx: Ctx, movedId: string | null, shift_m: number, z0_m: number, z1_m: number): { x: Mat2; y: Mat2 } {
+	if (!ctx.compiled) {
+		let n = ctx.train.source.index;
+		ctx.compiled = [...ctx.train.elements]
+			.sort((a, b) => a.z_m - b.z_m)
+			.map((e) => {
+				const c = compileElement(e.spec, n);
+				n = c.indexAfter;
+				return { id: e.id, z_m: e.z_m, steps: c.steps, length_m: c.length_m, indexAfter: c.indexAfter };
+			});
+	}
+	const els = ctx.compiled;
+	let order = els;
+	if (movedId !== null && shift_m !== 0) {
+		order = els.map((e) => (e.id === movedId ? { ...e, z_m: e.z_m + shift_m } : e));
+		order.sort((a, b) => a.z_m - b.z_m);
+	}
+	let x: Mat2 = identity;
+	let y: Mat2 = identity;
+	let z = z0_m;
+	let n = 1;
+	for (const e of order) {
+		if (e.z_m < z0_m || e.z_m >= z1_m) continue;
+		const d = (e.z_m - z) / n;
+		x = [x[0] + d * x[2], x[1] + d * x[3], x[2], x[3]];
+		y = [y[0] + d * y[2], y[1] + d * y[3], y[2], y[3]];
+		for (const s of e.steps) {
+			if (s.op === 'travel') {
+				x = [x[0] + s.reducedX_m * x[2], x[1] + s.reducedX_m * x[3], x[2], x[3]];
+				y = [y[0] + s.reducedY_m * y[2], y[1] + s.reducedY_m * y[3], y[2], y[3]];
+			} else {
+				x = mul(s.x, x);
+				y = mul(s.y, y);
+			}
+		}
+		n = e.indexAfter;
+		z = e.z_m + e.length_m;
+	}
+	const d = (z1_m - z) / n;
+	return { x: [x[0] + d * x[2], x[1] + d * x[3], x[2], x[3]], y: [y[0] + d * y[2], y[1] + d * y[3], y[2], y[3]] };
+}
+
+/** The source's beam in air at a plane before every element (or at the target when there are none). */
+function sourceBeam(ctx: Ctx): { z_m: number; x: QHat; y: QHat; m2x: number; m2y: number } {
+	const at = ctx.geometry.at_m;
+	const r = propagate({ ...ctx.train, elements: [], end_m: Math.max(ctx.train.end_m, at + 0.01) });
+	const firstEl = ctx.train.elements.reduce((m, e) => Math.min(m, e.z_m), at);
+	const z = Math.min(firstEl, at) - 0.05;
+	const b = beamAt(r, z);
+	if (Math.abs(b.x.index - 1) > 1e-9) throw new RangeError(`the beam must travel in air between the source and the cavity — the source medium has index ${b.x.index}`);
+	return { z_m: z, x: b.x.q, y: b.y.q, m2x: r.m2x, m2y: r.m2y };
 }
 
 const MAX_ORDER = 6;
@@ -400,8 +478,9 @@ export function diagnoseLab(doc: SetupDoc, report: LabReport & { ctx: Ctx | null
 			return { x: Math.hypot(bx.re, bx.im), y: Math.hypot(by.re, by.im) };
 		};
 		try {
-			const r = lensMoveFor(betaAt, measured, 0.03, 41);
-			return { id: l.id, label: l.label, moveA_m: r.plus === null ? null : -r.plus, moveB_m: r.minus === null ? null : -r.minus, misfit: Math.min(r.misfit.plus, r.misfit.minus) };
+			const r = lensMoveFor(betaAt, measured, 0.03, 21);
+			const tidy = (v: number | null) => (v === null ? null : Math.abs(v) < 1e-6 ? 0 : -v);
+			return { id: l.id, label: l.label, moveA_m: tidy(r.plus), moveB_m: tidy(r.minus), misfit: Math.min(r.misfit.plus, r.misfit.minus) };
 		} catch {
 			return { id: l.id, label: l.label, moveA_m: null, moveB_m: null, misfit: Infinity };
 		}

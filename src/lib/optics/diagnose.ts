@@ -276,16 +276,29 @@ export function lensMoveFor(mismatchAt: (delta_m: number) => { x: number; y: num
 			const v = f(d);
 			if (v < bf) [bd, bf] = [d, v];
 		}
-		// Golden-section refinement around the best sample.
+		// Golden-section refinement around the best sample (one new evaluation per step).
 		const h = (hi - lo) / (samples - 1);
 		let a = Math.max(lo, bd - h);
 		let b = Math.min(hi, bd + h);
 		const g = (Math.sqrt(5) - 1) / 2;
-		for (let k = 0; k < 60; k++) {
-			const c1 = b - g * (b - a);
-			const c2 = a + g * (b - a);
-			if (f(c1) < f(c2)) b = c2;
-			else a = c1;
+		let c1 = b - g * (b - a);
+		let c2 = a + g * (b - a);
+		let f1 = f(c1);
+		let f2 = f(c2);
+		for (let k = 0; k < 30; k++) {
+			if (f1 < f2) {
+				b = c2;
+				c2 = c1;
+				f2 = f1;
+				c1 = b - g * (b - a);
+				f1 = f(c1);
+			} else {
+				a = c1;
+				c1 = c2;
+				f1 = f2;
+				c2 = a + g * (b - a);
+				f2 = f(c2);
+			}
 		}
 		const d = (a + b) / 2;
 		return { d, v: f(d) };

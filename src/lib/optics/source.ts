@@ -2,6 +2,7 @@
  * Source beams: turn what a datasheet or a measurement gives into a waist (w0, z0) per axis.
  * z is measured from the source's reference plane (the laser's exit aperture, z = 0), +z downstream.
  */
+import { requireParaxial } from './paraxial';
 import { farFieldHalfAngle_rad, rayleighRange_m } from './beam';
 import { requireFinite, requirePositive, requireThat } from './constants';
 
@@ -126,8 +127,14 @@ export function waistFromTwoDiameters(d1_m: number, z1_m: number, d2_m: number, 
 	return res;
 }
 
-/** Resolve one axis of a source to its waist. */
+/** Resolve one axis of a source to its waist; a waist outside the paraxial range is refused (paraxial.ts). */
 export function resolveAxis(axis: AxisSource, wavelength_m: number, index: number): AxisWaist {
+	const w = resolveAxisUnchecked(axis, wavelength_m, index);
+	requireParaxial(w.w0_m, wavelength_m, w.m2, index, 'source waist radius');
+	return w;
+}
+
+function resolveAxisUnchecked(axis: AxisSource, wavelength_m: number, index: number): AxisWaist {
 	requirePositive(wavelength_m, 'wavelength', 'm');
 	requireThat(Number.isFinite(axis.m2) && axis.m2 >= 1, 'M²', '≥ 1', axis.m2);
 	requireThat(Number.isFinite(index) && index >= 1, 'source medium index', '≥ 1', index);

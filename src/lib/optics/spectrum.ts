@@ -186,7 +186,7 @@ export function cavitySpectrum(input: SpectrumInput): CavitySpectrum {
 	}
 	const warnings = degeneracies.map(
 		(d) =>
-			`Near-degenerate cavity (${d.axis} axis): Gouy phase/2π is close to ${d.ratio}; modes of order ${d.order} on ${d.axis} fall ${(d.linewidths).toPrecision(2)} linewidths from TEM00, so their peaks overlap the fundamental.`
+			`Near-degenerate cavity (${d.axis} axis): Gouy phase/2π is close to ${d.ratio}; modes of order ${d.order} on ${d.axis} fall ${d.linewidths < 0.05 ? 'on' : `${d.linewidths.toPrecision(2)} linewidths from`} TEM00, so their peaks overlap the fundamental.`
 	);
 	return {
 		fsr_Hz: fsr,
