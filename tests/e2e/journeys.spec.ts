@@ -85,7 +85,7 @@ const matchSection = {
 test('(b) Match → Put on the bench: the bench shows the solution and its waist is the target', async ({ page }) => {
 	await startWith(page, setupDoc({ name: 'Journey b', extra: { match: matchSection } }), '/match/');
 	await expect(page.getByTestId('search-constraints')).toContainText('Keep-out zones: none');
-	await expect(page.getByTestId('constraint-rail')).toContainText('50 mm to 650 mm');
+	await expect(page.getByTestId('constraint-rail')).toContainText('"50 mm" to "650 mm"');
 	await page.getByTestId('match-run').click();
 	await expect(page.getByTestId('match-progress')).toContainText(/Done/, { timeout: 30_000 });
 	await page.getByTestId('match-row').first().getByTestId('match-apply').click();
