@@ -1,5 +1,5 @@
-import { readFile } from 'node:fs/promises';
-import { allowOnly, CliInputError, parseArgs, requireString } from '../args';
+import { readText } from '../readText';
+import { allowOnly, CliInputError, optString, parseArgs, requireString } from '../args';
 import { readSetupFile } from '../setupFile';
 import { compileLabForCli } from './labShared';
 import { diagnoseLab, parsePeaksCsv, parseFraction } from '../../lib/document/cavityLab';
@@ -9,10 +9,10 @@ export const usage = 'npx beamwright diagnose setup.json --peaks peaks.csv [--no
 
 export async function run(argv: string[]) {
 	const args = parseArgs(argv);
-	allowOnly(args, ['peaks', 'noise']);
+	allowOnly(args, ['peaks', 'noise'], { files: { max: 1, label: 'setup', example: 'npx beamwright diagnose setup.json --peaks peaks.csv' } });
 	const file = args.positionals[0];
-	const peaksFile = requireString(args, 'peaks', 'peaks.csv');
-	const noiseText = args.options.get('noise');
+	const peaksFile = requireString(args, 'peaks', 'peaks.csv', 'a CSV file of peak heights or a scan trace');
+	const noiseText = optString(args, 'noise', 'a fraction > 0 and < 0.5, e.g. 1% or 0.01');
 	let noise = 0.01;
 	if (noiseText !== undefined) {
 		const r = parseFraction(String(noiseText), '--noise');
@@ -23,7 +23,7 @@ export async function run(argv: string[]) {
 	const { report } = compileLabForCli(doc, file);
 	let csv: string;
 	try {
-		csv = await readFile(peaksFile, 'utf8');
+		csv = await readText(peaksFile);
 	} catch {
 		throw new CliInputError(`--peaks: cannot read "${peaksFile}"`);
 	}

@@ -1,4 +1,4 @@
-import { allowOnly, CliInputError, parseArgs } from '../args';
+import { allowOnly, optInteger, parseArgs } from '../args';
 import { readSetupFile } from '../setupFile';
 import { compileLabForCli } from './labShared';
 
@@ -7,10 +7,8 @@ export const usage = 'npx beamwright spectrum setup.json [--max-order 4]   (refl
 
 export async function run(argv: string[]) {
 	const args = parseArgs(argv);
-	allowOnly(args, ['max-order']);
-	const t = args.options.get('max-order');
-	const maxOrder = t === undefined ? 4 : Number(t);
-	if (!(Number.isInteger(maxOrder) && maxOrder >= 0 && maxOrder <= 6)) throw new CliInputError(`--max-order: must be a whole number from 0 to 6 — got ${String(t)}`);
+	allowOnly(args, ['max-order'], { files: { max: 1, label: 'setup', example: 'npx beamwright spectrum setup.json' } });
+	const maxOrder = optInteger(args, 'max-order', 0, 6, 4);
 	const doc = await readSetupFile(args.positionals[0], 'spectrum');
 	const { report } = compileLabForCli(doc, args.positionals[0]);
 	const s = report.spectrum!;
