@@ -73,7 +73,7 @@ export interface GaussianImageSpec {
  * (Siegman 1986, §17.1, from memory) on a background offset + tilt, plus seeded Gaussian noise.
  * Its second-moment (D4σ) diameters are 2·w1 and 2·w2 (ISO 11146-1:2005, clause 3, from memory).
  */
-export function gaussianImage(spec: GaussianImageSpec): { width: number; height: number; data: Uint8Array | Uint16Array | Float64Array } {
+export function gaussianImage(spec: GaussianImageSpec): { width: number; height: number; data: Uint8Array | Uint16Array | Float64Array; maxValue?: number } {
 	const { width: W, height: H, x0, y0, w1, w2, peak } = spec;
 	const bits = spec.bits ?? 16;
 	const a = spec.angle_rad ?? 0;
@@ -91,5 +91,5 @@ export function gaussianImage(spec: GaussianImageSpec): { width: number; height:
 			data[r * W + c] = val;
 		}
 	}
-	return { width: W, height: H, data };
+	return bits === 0 ? { width: W, height: H, data } : { width: W, height: H, data, maxValue: top };
 }

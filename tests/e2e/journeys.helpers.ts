@@ -60,7 +60,7 @@ export async function expectWaistAfter(page: Page, label: string, z_m: number, w
 				const ok = Math.abs(row.z_m - z_m) <= rel * Math.abs(z_m) && Math.abs(row.w0_m - w0_m) <= rel * w0_m;
 				return ok ? 'ok' : `${row.text} (expected z ${z_m} m, w0 ${w0_m} m)`;
 			},
-			{ timeout: 5000 }
+			{ timeout: 10_000 }
 		)
 		.toBe('ok');
 }

@@ -189,11 +189,11 @@ const mpeVisible = (18 * 0.25 ** 0.75) / 0.25;
 test('(e) Hazard from the bench beam follows bench edits, and its summary prints the same numbers', async ({ page }) => {
 	const safety = { beamFrom: 'bench', label: 'Demo laser J', power: '5 mW', duration: '' };
 	await startWith(page, setupDoc({ name: 'Journey e', wavelength: '532 nm', waist: '1 mm', extra: { safety } }), '/hazard/');
-	await expect(page.getByTestId('hz-bench-beam')).toContainText('Journey e');
-	await expect(page.getByTestId('hz-bench-beam')).toContainText('532 nm');
 	// No elements: exit at the source waist, d = 2w0, φ = 2λ/(π·w0) (Siegman 1986, far field).
 	const before = nohdFormula(5e-3, mpeVisible, 2e-3, (2 * 532e-9) / (Math.PI * 1e-3));
 	await expect.poll(async () => readSI(await page.getByTestId('hz-nohd-formula').innerText()) / before).toBeCloseTo(1, 3);
+	await expect(page.getByTestId('hz-bench-beam')).toContainText('Journey e');
+	await expect(page.getByTestId('hz-bench-beam')).toContainText('532 nm');
 
 	// On the bench: 632.8 nm and a 100 mm lens at 100 mm.
 	await openWorkspace(page, 'Bench');
@@ -203,13 +203,13 @@ test('(e) Hazard from the bench beam follows bench edits, and its summary prints
 	await page.getByTestId('el-L1-at').fill('100 mm');
 	await page.getByTestId('el-L1-f').fill('100 mm');
 	await openWorkspace(page, 'Hazard');
-	await expect(page.getByTestId('hz-bench-beam')).toContainText('632.8 nm');
 	// Exit at the lens (z = 0.1 m, where the distance starts): d = 2·w(0.1 m) of the source beam; after
 	// it Self's (1983) waist w0', φ = 2λ/(π·w0').
 	const zR = rayleigh(1e-3, HeNe);
 	const out = thinLens(1e-3, 0.1, zR, 0.1);
 	const after = 0.1 + nohdFormula(5e-3, mpeVisible, 2 * 1e-3 * Math.sqrt(1 + (0.1 / zR) ** 2), (2 * HeNe) / (Math.PI * out.w0_m));
 	await expect.poll(async () => readSI(await page.getByTestId('hz-nohd-formula').innerText()) / after).toBeCloseTo(1, 3);
+	await expect(page.getByTestId('hz-bench-beam')).toContainText('632.8 nm');
 	const shown = await page.getByTestId('hz-nohd-formula').innerText();
 
 	// The printed summary names the bench setup and its wavelength and carries the same numbers.
@@ -341,11 +341,29 @@ test('(j) a share link opened and accepted: every page follows', async ({ page, 
 	const link = await page.getByTestId('share-link').inputValue();
 	const context = await browser.newContext();
 	const other = await context.newPage();
-	await startWith(other, setupDoc({ name: 'Journey j, before' }), '/match/');
-	await other.goto(link);
-	await expect(other.getByTestId('shared-offer')).toContainText('Journey file');
-	await expect(other.getByTestId('src-wavelength')).toHaveValue('632.8 nm'); // not applied before the user says so
+	await other.goto(link); // a browser with no setup of its own: the demo is shown and the link's setup offered
+	await expect(other.getByTestId('shared-offer')).toContainText('Journey file', { timeout: 15_000 });
+	await expect(other.getByTestId('src-wavelength')).toHaveValue('1064 nm'); // not applied before the user says so
 	await other.getByTestId('shared-open').click();
 	await expectEveryPageShowsFile(other);
 	await context.close();
+});
+
+test('(k) a focus just past "Plot to" stays in the waist table, marked, with an offer to extend', async ({ page }) => {
+	// −100 mm at 100 mm, then 215 mm at 300 mm: Self (1983) twice puts the focus just past 1 m.
+	const lenses = [{ at: '100 mm', f: '-100 mm' }, { at: '300 mm', f: '215 mm' }];
+	const focus = throughLenses(0.5e-3, 0, HeNe, lenses.map((l) => ({ z_m: mm(l.at), f_m: mm(l.f) })));
+	expect(focus.z_m).toBeGreaterThan(1);
+	await startWith(page, setupDoc({ name: 'Journey k', lenses, end: '1 m' }));
+	const beyond = page.getByTestId('waist-beyond');
+	await expect(beyond.first()).toContainText('beyond the plot');
+	await expectWaistAfter(page, 'L2', focus.z_m, focus.w0_m);
+	await page.getByTestId('extend-plot').click();
+	expect(readSI(await page.getByTestId('view-end').inputValue())).toBeGreaterThan(focus.z_m);
+	await expect(beyond).toHaveCount(0);
+	await expectWaistAfter(page, 'L2', focus.z_m, focus.w0_m);
+	// Empty "Plot to" (the default of a new setup): the plot runs past that waist on its own.
+	await page.getByTestId('view-end').fill('');
+	await expect(beyond).toHaveCount(0);
+	await expectWaistAfter(page, 'L2', focus.z_m, focus.w0_m);
 });

@@ -3,7 +3,7 @@
  * round trip. Storage keys are those of src/lib/document/persist.ts.
  */
 import { test, expect, type Page } from '@playwright/test';
-import { readFileSync } from 'node:fs';
+import { readFileSync, writeFileSync } from 'node:fs';
 
 const KEY = 'beamwright.setup.v1';
 
@@ -128,4 +128,58 @@ test('the lab table export re-imports to the same lasers; a refused import leave
 	await expect(page.getByTestId('hz-lab-refused')).toContainText('was not imported');
 	await expect(page.getByTestId('hz-lab-refused')).toContainText('quote');
 	await expect(rows).toHaveCount(8);
+});
+
+test('a new build: the user is told a new version is ready and can reload onto it', async ({ page, context }) => {
+	await page.goto('/');
+	await expect(page.getByTestId('caustic-plot')).toBeVisible();
+	await page.evaluate(async () => {
+		await navigator.serviceWorker.ready;
+	});
+	await page.reload();
+	await expect.poll(() => page.evaluate(() => navigator.serviceWorker.controller !== null)).toBe(true);
+	await expect(page.getByTestId('update-ready')).toHaveCount(0);
+	// The next build: the served service worker changes (as after a deploy); restored afterwards.
+	const swFile = 'build/service-worker.js';
+	const original = readFileSync(swFile, 'utf8');
+	try {
+		writeFileSync(swFile, original + '\n// next build\n');
+		await page.evaluate(async () => {
+			const reg = await navigator.serviceWorker.getRegistration();
+			await reg?.update();
+		});
+		await expect(page.getByTestId('update-ready')).toContainText('A new version of Beamwright is ready', { timeout: 20_000 });
+		// The page is not switched under the user: they choose when to reload.
+		await page.getByTestId('update-reload').click();
+		await page.waitForEvent('load');
+		await expect(page.getByTestId('caustic-plot')).toBeVisible();
+		await expect(page.getByTestId('update-ready')).toHaveCount(0);
+	} finally {
+		writeFileSync(swFile, original);
+	}
+});
+
+test('an image that declares 60000 × 60000 pixels is refused at once; the other images are analysed', async ({ page }) => {
+	await page.goto('/measure/');
+	// PNG signature and an IHDR chunk declaring 60000 × 60000, 16-bit greyscale (W3C PNG 2nd ed., §11.2.2).
+	const head = Buffer.alloc(33);
+	Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]).copy(head, 0);
+	head.writeUInt32BE(13, 8);
+	head.write('IHDR', 12, 'latin1');
+	head.writeUInt32BE(60000, 16);
+	head.writeUInt32BE(60000, 20);
+	head[24] = 16;
+	const rows: string[] = [];
+	for (let y = 0; y < 64; y++) {
+		const row: number[] = [];
+		for (let x = 0; x < 64; x++) row.push(Math.round(1000 * Math.exp((-2 * ((x - 32) ** 2 + (y - 32) ** 2)) / 12 ** 2)));
+		rows.push(row.join(','));
+	}
+	await page.getByTestId('image-files').setInputFiles([
+		{ name: 'huge.png', mimeType: 'image/png', buffer: head },
+		{ name: 'plane 10mm.csv', mimeType: 'text/csv', buffer: Buffer.from(rows.join('\n')) }
+	]);
+	const cards = page.getByTestId('image-card');
+	await expect(cards.nth(0)).toContainText('declares 60000 × 60000');
+	await expect(cards.nth(1).getByTestId('image-moments')).toBeVisible();
 });

@@ -5,6 +5,7 @@
  */
 import { describe, it, expect } from 'vitest';
 import fc from 'fast-check';
+import './seed';
 import { expectClose } from '../helpers';
 import {
 	beamAt,

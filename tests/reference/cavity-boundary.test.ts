@@ -133,15 +133,15 @@ describe('the other boundaries and the stable/unstable sides keep their verdicts
 
 describe('CLI `cavity` reports the boundary with its limit values', () => {
 	it('hemispherical: status "boundary", the reason and the limit (null = grows without bound)', async () => {
-		const { execFileSync } = await import('node:child_process');
-		const out = JSON.parse(execFileSync('node', ['bin/beamwright.js', 'cavity', '--r1', 'flat', '--r2', '0.5m', '--length', '0.5m', '--wavelength', '1064nm'], { encoding: 'utf8' }));
+		const { runCli } = await import('../cli');
+		const out = JSON.parse((await runCli('cavity', '--r1', 'flat', '--r2', '0.5m', '--length', '0.5m', '--wavelength', '1064nm')).stdout);
 		expect(out.stable).toBe(false);
 		expect(out.status).toBe('boundary');
 		expect(out.reason).toMatch(/stability boundary/);
 		expect(out.limit.w0_m).toBe(0);
 		expect(out.limit.wMirror2_m).toBeNull();
 		expect(out.limit.unbounded).toEqual(['wMirror2_m']);
-		const conf = JSON.parse(execFileSync('node', ['bin/beamwright.js', 'cavity', '--r1', '0.5m', '--r2', '0.5m', '--length', '0.5m', '--wavelength', '1064nm'], { encoding: 'utf8' }));
+		const conf = JSON.parse((await runCli('cavity', '--r1', '0.5m', '--r2', '0.5m', '--length', '0.5m', '--wavelength', '1064nm')).stdout);
 		expect(conf.status).toBe('boundary');
 		// Boyd & Gordon 1961: w0 = sqrt(λL/2π).
 		expectClose(conf.limit.w0_m, Math.sqrt((lam * 0.5) / (2 * Math.PI)), 1e-12);

@@ -6,7 +6,7 @@
  * - ISO 11146-1:2005, clause 3 (definitions: Θ = 4·M²·λ/(π·d0) for the embedded-Gaussian caustic
  *   d(z)² = d0² + Θ²·(z − z0)²); from memory.
  * - H. Kogelnik, T. Li, "Laser Beams and Resonators", Applied Optics 5(10), 1550–1567 (1966),
- *   eqs. 19–20: w(z) = w0·√(1 + (z/zR)²), zR = π·w0²/λ.
+ *   eq. 20 (number from memory): w(z) = w0·√(1 + (z/zR)²), with zR = π·w0²/λ.
  * - JCGM 100:2008 (GUM), eq. 13: first-order propagation of the covariance.
  */
 import { describe, expect, it } from 'vitest';
@@ -80,7 +80,7 @@ describe('fitCaustic', () => {
 		expectClose(f.c, theta * theta, 1e-8, 'c');
 	});
 
-	it('finds M² = 1 and zR = π·w0²/λ for a TEM00 caustic w(z) = w0·√(1 + (z/zR)²) (Kogelnik & Li 1966, eqs. 19–20)', () => {
+	it('finds M² = 1 and zR = π·w0²/λ for a TEM00 caustic w(z) = w0·√(1 + (z/zR)²) (Kogelnik & Li 1966, eq. 20, number from memory)', () => {
 		const w0 = 0.3e-3, lam = 632.8e-9;
 		const zR = (Math.PI * w0 * w0) / lam;
 		const pts = [-3.5, -2.8, -2.1, -0.8, -0.4, 0, 0.3, 0.7, 2.4, 3.3].map((k) => ({ z_m: 1 + k * zR, d_m: 2 * w0 * Math.sqrt(1 + k * k) }));
@@ -182,7 +182,7 @@ describe('sampleCaustic', () => {
 		const s = sampleCaustic(f, -1, 1, 5);
 		expect(Array.from(s.z_m)).toEqual([-1, -0.5, 0, 0.5, 1]);
 		expectClose(s.d_m[2], 1e-3, 1e-9);
-		expectClose(s.d_m[4], causticDiameter_m(1e-3, 0, 1, lambda, 1), 1e-9);
+		expectClose(s.d_m[4], caustic(1e-3, 0, 1, lambda, 1), 1e-9);
 	});
 
 	it('throws for an empty range or fewer than two samples', () => {

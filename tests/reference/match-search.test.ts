@@ -15,7 +15,7 @@ import { describe, expect, it } from 'vitest';
 import { mkdtempSync, writeFileSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { spawnSync } from 'node:child_process';
+import { runCli } from '../cli';
 import { searchMatches, singleLensExact, waistTarget, fiberTarget, cavityTarget, type InputBeam, type MatchProblem, type StockLens } from '../../src/lib/optics/solve';
 import { expectClose } from '../helpers';
 
@@ -261,16 +261,16 @@ describe('three lenses from many lens types', () => {
 		expect(s[0].lenses).toHaveLength(3);
 		expect(s[0].efficiency).toBeGreaterThan(1 - 1e-6);
 	});
-	it('`beamwright match` with a three-lens search over 80 lens types exits 0 with ranked solutions', () => {
+	it('`beamwright match` with a three-lens search over 80 lens types exits 0 with ranked solutions', async () => {
 		const dir = mkdtempSync(join(tmpdir(), 'bw-match-'));
 		const doc = JSON.parse(readFileSync('static/demo/match-cavity.json', 'utf8'));
 		doc.match.inventory = shelf(80).map((l) => ({ label: l.label, focal: `${l.f_m * 1000} mm`, diameter: '25.4 mm', count: '1' }));
 		doc.match.lensCounts = [3];
 		const file = join(dir, 'shelf80.json');
 		writeFileSync(file, JSON.stringify(doc));
-		const r = spawnSync('node', ['bin/beamwright.js', 'match', file, '--top', '3'], { encoding: 'utf8' });
+		const r = await runCli('match', file, '--top', '3');
 		expect(r.stderr).toBe('');
-		expect(r.status).toBe(0);
+		expect(r.code).toBe(0);
 		const out = JSON.parse(r.stdout);
 		expect(out.solutions).toHaveLength(3);
 		for (const s of out.solutions) {

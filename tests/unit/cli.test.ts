@@ -101,7 +101,7 @@ describe('beamwright propagate', () => {
 		expectClose(out.wavelength_m, 1064e-9, 1e-12);
 		expect(out.m2).toEqual({ x: 1.3, y: 1.6 });
 		expect(out.elements.map((e: { label: string }) => e.label)).toEqual(['L1', 'L2', 'M1', 'M2']);
-		// The beam arriving at L1 (250 mm) is the source's free-space beam (Kogelnik & Li 1966, eq. 20).
+		// The beam arriving at L1 (250 mm) is the source's free-space beam (Kogelnik & Li 1966, eq. 20, number from memory).
 		const lam = 1064e-9;
 		for (const [ax, m2, w0, z0] of [['x', 1.3, 0.45e-3, -0.04], ['y', 1.6, 0.4e-3, -0.01]] as const) {
 			const zR = (Math.PI * w0 * w0) / (m2 * lam);

@@ -24,7 +24,7 @@ describe('readCsv', () => {
 		expect(r.ok && r.records).toEqual([
 			{ line: 1, cells: ['a', 'b'] },
 			{ line: 2, cells: ['x, y', 'say "hi"'] },
-			{ line: 3, cells: ['two\nlines', 'z'] },
+			{ line: 3, lineEnd: 4, cells: ['two\nlines', 'z'] },
 			{ line: 7, cells: ['last', '1'] }
 		]);
 	});

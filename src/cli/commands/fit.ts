@@ -25,7 +25,13 @@ export function unitScale(option: string, unit: string): number {
 
 function axisJson(r: AxisResult) {
 	const f = r.fit;
-	if (!f.physical) return { physical: false, reason: f.reason, planes: f.n, a_m2: f.a_m2, b_m: f.b_m, c: f.c };
+	if (!f.physical) {
+		const out: Record<string, unknown> = { physical: false, reason: f.reason, planes: f.n, a_m2: f.a_m2, b_m: f.b_m, c: f.c };
+		// M² below 1: the likely causes, and the hyperbola's figures for diagnosis (not a real beam).
+		if (f.likelyCauses) out.likelyCauses = f.likelyCauses;
+		if (f.figures) out.figures = { ...f.figures, uncertainty: f.figureUncertainty ?? null };
+		return out;
+	}
 	return {
 		physical: true,
 		d0_m: f.d0_m,
@@ -36,7 +42,8 @@ function axisJson(r: AxisResult) {
 		uncertainty: f.uncertainty,
 		planes: f.n,
 		weighting: f.weighting,
-		rmsRelativeResidual: f.rmsRelativeResidual
+		rmsRelativeResidual: f.rmsRelativeResidual,
+		...(f.note ? { note: f.note } : {})
 	};
 }
 

@@ -3,8 +3,10 @@
  * CSV (`--inventory lasers.csv [--format csv]`). JSON (or CSV) with the caution.
  */
 import { readText } from '../readText';
-import { allowOnly, CliInputError, optChoice, optQuantity, optString, parseArgs, requireQuantity } from '../args';
+import { allowOnly, CliInputError, optAll, optChoice, optQuantity, optString, parseArgs, requireQuantity } from '../args';
 import { assessBeam } from '../../lib/safety/assess';
+import { assessLines, type LaserLine } from '../../lib/safety/lines';
+import { parseQuantity } from '../../lib/units/parse';
 import { viewingCases } from '../../lib/safety/exposure';
 import { assessInventory, inventoryColumns, inventoryToCsv } from '../../lib/safety/inventory';
 import { standardChoices } from '../../lib/safety/limits/index';
@@ -14,12 +16,13 @@ export const summary = 'Laser hazard distances (NOHD by formula and along the be
 export const usage = [
 	'npx beamwright hazard --standard eu-2006-25|iec-60825-1-2014|stricter --wavelength 514.5nm --power 5W --diameter 2.83mm --divergence 1.41mrad [--duration 0.25s | --viewing accidental|worst-case|deliberate]',
 	'      [--pulse-energy 1mJ --pulse-width 10ns [--repetition-rate 10Hz]] [--source-angle 1.5mrad]',
+	'   or several lines in one beam: --line 532nm:2W --line 1064nm:50mW … (instead of --wavelength and --power; continuous lines)',
 	'      [--optic-aperture 50mm --optic-magnification 7 --optic-transmission 0.9] [--reflectance 0.9 [--viewing-angle 0deg]]',
 	'   or: npx beamwright hazard --inventory lasers.csv [--standard …] [--format json|csv]',
 	`      CSV columns (header line, any order): ${inventoryColumns.map((c) => (c.required ? c.name + '*' : c.name)).join(', ')} (* needed); a bare number takes the column's default unit (nm, W, J, s, Hz, mm, mrad)`
 ].join('\n');
 
-const single = ['standard', 'wavelength', 'power', 'pulse-energy', 'pulse-width', 'repetition-rate', 'diameter', 'divergence', 'duration', 'viewing', 'source-angle', 'optic-aperture', 'optic-magnification', 'optic-transmission', 'reflectance', 'viewing-angle'];
+const single = ['line', 'standard', 'wavelength', 'power', 'pulse-energy', 'pulse-width', 'repetition-rate', 'diameter', 'divergence', 'duration', 'viewing', 'source-angle', 'optic-aperture', 'optic-magnification', 'optic-transmission', 'reflectance', 'viewing-angle'];
 
 async function inventory(argv: ReturnType<typeof parseArgs>) {
 	allowOnly(argv, ['inventory', 'standard', 'format']);
@@ -72,11 +75,66 @@ async function inventory(argv: ReturnType<typeof parseArgs>) {
 	};
 }
 
+/** Parse one `--line WAVELENGTH:POWER` value; the message names the option, the value and the accepted form. */
+export function parseLine(text: string, n: number): LaserLine {
+	const accepted = 'WAVELENGTH:POWER, e.g. 532nm:2W — wavelength 180 nm–1 mm, power > 0';
+	const k = text.lastIndexOf(':');
+	if (k <= 0 || k === text.length - 1) throw new CliInputError(`--line (${n}): "${text}" is not WAVELENGTH:POWER — accepted: ${accepted}`);
+	const read = (part: string, spec: Parameters<typeof parseQuantity>[1]): number => {
+		const r = parseQuantity(part, spec);
+		if (r.ok) return r.value_si;
+		if (r.pending) throw new CliInputError(r.message); // main() loads the unit engine and runs again
+		throw new CliInputError(`--line (${n}) "${text}": ${r.message} — accepted: ${accepted}`);
+	};
+	const wavelength_m = read(text.slice(0, k), { label: 'wavelength', kind: 'length', min_si: wavelengthSpec.min_si, max_si: wavelengthSpec.max_si });
+	const power_W = read(text.slice(k + 1), { label: 'power', kind: 'power', above_si: 0, max_si: 1e15 });
+	return { wavelength_m, power_W };
+}
+
+async function severalLines(args: ReturnType<typeof parseArgs>, standard: (typeof standardChoices)[number], texts: string[]) {
+	for (const o of ['wavelength', 'power', 'pulse-energy', 'pulse-width', 'repetition-rate', 'optic-aperture', 'optic-magnification', 'optic-transmission', 'reflectance', 'viewing-angle'])
+		if (args.options.has(o)) throw new CliInputError(`--${o}: not taken with --line — each --line gives its wavelength and continuous power (WAVELENGTH:POWER)`);
+	const lines = texts.map((t, i) => parseLine(t, i + 1));
+	const diameter_m = requireQuantity(args, 'diameter', { kind: 'length', above_si: 0, max_si: 10 }, '2.83mm');
+	const fullDivergence_rad = requireQuantity(args, 'divergence', { kind: 'angle', above_si: 0, max_si: Math.PI }, '1.41mrad');
+	const duration_s = optQuantity(args, 'duration', durationSpec);
+	if (duration_s !== undefined && args.options.has('viewing')) throw new CliInputError('--viewing: sets the default duration — give it or --duration, not both');
+	const viewing = optChoice(args, 'viewing', viewingCases, 'accidental');
+	const alpha_rad = optQuantity(args, 'source-angle', { kind: 'angle', min_si: 0, max_si: Math.PI });
+	const r = assessLines({ standard, diameter_m, fullDivergence_rad, duration_s, viewing, alpha_rad }, lines);
+	return {
+		lines: r.lines.map(({ line, eyeTissue, result: a }) => ({
+			wavelength_m: line.wavelength_m,
+			power_W: line.power_W,
+			eyeTissue,
+			standardId: a.standardId,
+			exposure_s: a.exposure.duration_s,
+			mpe_W_m2: a.mpe_W_m2,
+			limitingAperture_m: a.limitingAperture_m,
+			nohd_m: a.nohd_m,
+			hazardDistance_m: a.hazardDistance_m,
+			odRequired: a.odRequired,
+			odWhole: a.odWhole,
+			skin: a.skin,
+			provenance: a.provenance,
+			limitSource: a.limitSource,
+			provenanceLine: a.provenanceLine
+		})),
+		combined: r.combined,
+		tissueSource: r.tissueSource,
+		additivityClause: r.additivityClause,
+		notes: ['Each line is evaluated on its own; lines acting on the same tissue are combined (sum of exposure ÷ limit ≤ 1). Eyewear must give each line its own OD at its wavelength.'],
+		caution: r.caution
+	};
+}
+
 export async function run(argv: string[]) {
 	const args = parseArgs(argv);
 	if (args.options.has('inventory')) return inventory(args);
-	allowOnly(args, single);
+	allowOnly(args, single, { repeatable: ['line'] });
 	const standard = optChoice(args, 'standard', standardChoices, 'stricter');
+	const lineTexts = optAll(args, 'line', 'WAVELENGTH:POWER, e.g. 532nm:2W (180 nm–1 mm, power > 0)');
+	if (lineTexts.length) return severalLines(args, standard, lineTexts);
 	const wavelength_m = requireQuantity(args, 'wavelength', wavelengthSpec, '514.5nm');
 	const power_W = optQuantity(args, 'power', { kind: 'power', above_si: 0, max_si: 1e15 }, '5W');
 	const pulseEnergy_J = optQuantity(args, 'pulse-energy', { kind: 'energy', above_si: 0, max_si: 1e9 }, '1mJ');
@@ -112,6 +170,8 @@ export async function run(argv: string[]) {
 		nohd_m: a.nohd_m,
 		odRequired: a.odRequired,
 		odWhole: a.odWhole,
+		eyewear: a.eyewear,
+		skin: a.skin,
 		hazardDistance_m: a.hazardDistance_m,
 		hazardDistanceFrom: a.hazardDistanceFrom,
 		mpe_J_m2: a.mpe_J_m2,

@@ -4,7 +4,7 @@
  * position along one axis: error-function (or Gaussian) least-squares fit with uncertainties, and the
  * 10/90 % and 16/84 % clip distances converted to D4σ with the Gaussian factors.
  */
-import { readFile } from 'node:fs/promises';
+import { readText } from '../readText';
 import { CliInputError, allowOnly, optChoice, optString, parseArgs } from '../args';
 import { parseQuantity } from '../../lib/units/parse';
 import { parseScanTable } from '../../lib/io/scanTable';
@@ -32,7 +32,7 @@ export async function run(argv: string[]) {
 	const pUnit = optString(args, 'p-unit');
 	let text: string;
 	try {
-		text = await readFile(file, 'utf8');
+		text = await readText(file);
 	} catch {
 		throw new CliInputError(`scan file: cannot read "${file}" — give the path of a CSV file with columns x and P`);
 	}

@@ -15,7 +15,7 @@ export function newWholeSetup(): SetupDoc {
 		// Hazard: no laser name; the exposure duration follows the viewing case until the user types one.
 		safety: { version: 1, label: '', duration: '', inventoryCsv: '' },
 		// Measure: no widths; the wavelength follows the bench laser (empty: follow).
-		measure: { widths: '', zUnit: 'mm', dUnit: 'um', wavelength: '', weighting: 'relative', zOffset: '0 mm', pixel: '5.5 um' }
+		measure: { widths: '', zUnit: 'mm', dUnit: 'um', wavelength: '', wavelengthFrom: 'bench', weighting: 'relative', zOffset: '0 mm', pixel: '5.5 um' }
 	};
 }
 

@@ -83,6 +83,13 @@ export function validateSetup(value: unknown): { ok: true; doc: SetupDoc } | { o
 	if (obj.version > CURRENT_VERSION) return { ok: false, reason: `setup version ${obj.version} is newer than this Beamwright understands (${CURRENT_VERSION})` };
 	if (Array.isArray(obj.elements) && obj.elements.length > MAX_ELEMENTS)
 		return { ok: false, reason: `elements: ${obj.elements.length} elements — a setup holds at most ${MAX_ELEMENTS}` };
+	// A list where a table of named values belongs would be read as an empty table: refuse it.
+	for (const key of ['match', 'safety', 'measure'] as const) if (Array.isArray(obj[key])) return { ok: false, reason: `${key}: must be an object — got a list` };
+	if (Array.isArray(obj.elements))
+		for (let i = 0; i < obj.elements.length; i++) {
+			const p = (obj.elements[i] as { params?: unknown } | null)?.params;
+			if (Array.isArray(p)) return { ok: false, reason: `elements.${i}.params: must be an object — got a list` };
+		}
 	const r = v.safeParse(SetupSchema, obj);
 	if (!r.success) {
 		const issue = r.issues[0];

@@ -25,6 +25,8 @@ export type Separator = ',' | ';' | '\t' | ' ';
 export interface CsvRecord {
 	/** 1-based line where the record starts. */
 	line: number;
+	/** 1-based line where it ends (later than `line` when a quoted cell holds a line break). */
+	lineEnd?: number;
 	cells: string[];
 }
 
@@ -123,7 +125,8 @@ export function readCsv(text: string, options: CsvOptions = {}): CsvRead {
 			if (cells.length === 1 && cells[0].trim() === '') return;
 			if (cells.every((c) => c.trim() === '')) return;
 			if (!options.keepComments && cells[0].trimStart().startsWith('#')) return;
-			records.push({ line: start, cells });
+			const lineEnd = Math.max(start, s[end - 1] === '\n' ? line - 1 : line);
+			records.push(lineEnd > start ? { line: start, lineEnd, cells } : { line: start, cells });
 		}
 	});
 	if (failure) return { ok: false, ...(failure as { line: number; message: string }) };

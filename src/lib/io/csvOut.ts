@@ -6,8 +6,9 @@
  *
  * Text cells go through `csvCell`, the one place that guards against spreadsheet formula injection:
  * a text cell starting with = + - @ (or a tab / carriage return) gets a leading apostrophe, common
- * practice from the OWASP "CSV Injection" guidance. Swap this one function if a shared escaper lands.
+ * practice from the OWASP "CSV Injection" guidance — the app's one escaper, `csvCell` in csv.ts.
  */
+import { csvCell as sharedCell } from './csv';
 
 export interface CsvColumn {
 	/** Column name in the header row, with its unit in the name, e.g. "z_mm". */
@@ -31,10 +32,7 @@ export interface CsvTable {
 
 /** One text cell, escaped for CSV and guarded against formula injection. */
 export function csvCell(v: string): string {
-	let s = v;
-	if (/^[=+\-@\t\r]/.test(s)) s = "'" + s;
-	if (/[",\r\n]/.test(s)) s = '"' + s.replace(/"/g, '""') + '"';
-	return s;
+	return sharedCell(v);
 }
 
 /** One number cell: round-trip digits, empty for non-finite values. */

@@ -61,7 +61,7 @@ export interface InventoryLaser {
 export function splitCsv(text: string): Array<{ line: number; cells: string[] }> {
 	const r = readCsv(text, { keepComments: true, what: 'CSV' });
 	if (!r.ok) throw new RangeError(r.message);
-	return r.records;
+	return r.records.map(({ line, cells }) => ({ line, cells }));
 }
 
 /** Most lasers one inventory file may hold; a longer file is refused before it is read. */
@@ -70,6 +70,8 @@ export const MAX_INVENTORY_ROWS = 10_000;
 /** A data row that could not be read, kept with its text so an export carries it unchanged. */
 export interface RejectedRow {
 	line: number;
+	/** Last line of the row when a quoted cell ran over several lines. */
+	lineEnd?: number;
 	name: string;
 	message: string;
 	/** Import column name → cell text as given. */
@@ -132,6 +134,13 @@ export function parseInventoryCsv(text: string): InventoryRead {
 		const cells: Record<string, string> = {};
 		for (const c of inventoryColumns) cells[c.name] = cell(c.name);
 		const errs: string[] = [];
+		// A quoted cell that runs over several lines would hide the lasers on them: only a note may.
+		if (rec.lineEnd) {
+			const broken = inventoryColumns.filter((c) => c.name !== 'note' && /[\r\n]/.test(cells[c.name] ?? ''));
+			const unknown = rec.cells.some((c, i) => ![...index.values(), index.get('note')].includes(i) && /[\r\n]/.test(c));
+			if (broken.length || unknown)
+				errs.push(`a quoted cell${broken.length ? ` in ${broken.map((c) => c.name).join(', ')}` : ''} runs over lines ${rec.line}–${rec.lineEnd}; close the quote on its line (only note may hold a line break)`);
+		}
 		const qty = (col: InventoryColumn): number | undefined => {
 			const text = cell(col.name);
 			if (text === '') {
@@ -158,7 +167,7 @@ export function parseInventoryCsv(text: string): InventoryRead {
 		if (errs.length) {
 			const message = `${name || 'row'}: ${errs.join('; ')}`;
 			issues.push({ line: rec.line, message });
-			rejected.push({ line: rec.line, name, message, cells });
+			rejected.push({ line: rec.line, ...(rec.lineEnd ? { lineEnd: rec.lineEnd } : {}), name, message, cells });
 			continue;
 		}
 		lasers.push({
@@ -188,14 +197,14 @@ export function parseInventoryCsv(text: string): InventoryRead {
 
 /**
  * Stated ranges of the safety inputs (SI): beyond them a cell is refused with the range, so that no
- * absurd value reaches the limits or the NOHD. Chosen to hold every laboratory laser (common practice).
+ * absurd value reaches the limits or the NOHD. The same ranges as the hazard form and `beamwright hazard`.
  */
 export const columnRanges: Record<string, { min_si?: number; max_si?: number; above_si?: number }> = {
 	wavelength: { min_si: 100e-9, max_si: 1e-3 },
-	power: { above_si: 0, max_si: 1e6 },
-	pulse_energy: { above_si: 0, max_si: 1e4 },
-	pulse_width: { min_si: 1e-15, max_si: 3e4 },
-	rep_rate: { above_si: 0, max_si: 1e12 },
+	power: { above_si: 0, max_si: 1e15 },
+	pulse_energy: { above_si: 0, max_si: 1e9 },
+	pulse_width: { min_si: 1e-13, max_si: 3e4 },
+	rep_rate: { above_si: 0, max_si: 1e15 },
 	beam_diameter: { above_si: 0, max_si: 10 },
 	divergence: { above_si: 0, max_si: Math.PI },
 	exposure: { min_si: 1e-13, max_si: 3e4 },

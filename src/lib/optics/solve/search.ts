@@ -45,7 +45,7 @@ export interface MatchProblem {
 const GRID1 = 64;
 const GRID2_FIRST = 20;
 const GRID2_LAST = 16;
-const GRID3 = 8;
+const GRID3 = 7;
 /** Ranges each lens slot may use, clipped to the rail and to the target plane. */
 function slotRanges(c: MatchConstraints, n: number, targetZ: number): Interval[] {
 	const out: Interval[] = [];
@@ -273,8 +273,11 @@ export function createSearch(p: MatchProblem): Search {
 		}
 		return round ? eta * eta : eta;
 	};
-	/** Where the widths of the arriving beam and of the traced-back target are equal on axis a (a quadratic in z); the vertex when they never are. */
-	const equalWidths = (a: number, lo: number, hi: number, out: number[]) => {
+	/**
+	 * Where the widths of the arriving beam and of the traced-back target are equal on axis a (a quadratic
+	 * in z); when they never are in [lo, hi], the vertex (closest approach) or the middle, and returns false.
+	 */
+	const equalWidths = (a: number, lo: number, hi: number, out: number[]): boolean => {
 		out.length = 0;
 		// |q_b(z)|²/Im q_b = |q_t(z)|²/Im q_t with q_b = (z + p) + i·bi, q_t = (z + s) + i·ti.
 		const pp = bRe[a] - zp;
@@ -298,10 +301,30 @@ export function createSearch(p: MatchProblem): Search {
 				if (za >= lo && za <= hi) out.push(za);
 				if (zb >= lo && zb <= hi) out.push(zb);
 			}
-			if (out.length === 0) out.push(Math.min(hi, Math.max(lo, -B1 / (2 * A2))));
+			if (out.length === 0) {
+				out.push(Math.min(hi, Math.max(lo, -B1 / (2 * A2))));
+				return false;
+			}
 		}
-		if (out.length === 0) out.push(0.5 * (lo + hi));
+		if (out.length === 0) {
+			out.push(0.5 * (lo + hi));
+			return false;
+		}
+		return true;
 	};
+	/** Upper bound of the coupling with any lens at z: the curvature term at its best (zero), widths as they are. */
+	const boundOf = (z: number) => {
+		let eta = 1;
+		for (let a = 0; a < nAx; a++) {
+			const r = bRe[a] + (z - zp);
+			const t = tRe[a] - (zt - z);
+			const A = bIm[a] / (r * r + bIm[a] * bIm[a]);
+			const B = tIm[a] / (t * t + tIm[a] * tIm[a]);
+			eta *= (2 * Math.sqrt(A * B)) / (A + B);
+		}
+		return round ? eta * eta : eta;
+	};
+	let best3 = 0;
 	/** Newton steps on g(z) = 1/f from z, kept in [lo, hi]. */
 	const newtonRoot = (z: number, invF: number, lo: number, hi: number, steps: number) => {
 		for (let i = 0; i < steps; i++) {
@@ -454,9 +477,11 @@ export function createSearch(p: MatchProblem): Search {
 					z[1] = z2;
 					prefix(t, z, 2);
 					for (let a = 0; a < nAx; a++) {
-						equalWidths(a, lo3, hi3, roots);
+						const exact = equalWidths(a, lo3, hi3, roots);
 						for (let r = 0; r < roots.length; r++) {
 							const zs = roots[r];
+							// Prune by bound: widths that never meet cap the coupling whatever the third lens.
+							if (!exact && boundOf(zs) < 0.5 * best3) continue;
 							const need = gOf(zs);
 							// Nearest shelf powers on both sides (binary search in the power order), skipping types already used up.
 							let lo = 0;
@@ -474,6 +499,7 @@ export function createSearch(p: MatchProblem): Search {
 									const invF = powers[k];
 									const z3 = newtonRoot(zs, invF, lo3, hi3, 3);
 									const est = blocked(z3) ? 0 : etaOf(z3, invF);
+									if (est > best3) best3 = est;
 									if (est > e1) {
 										if (e1 >= 0 && k1 !== t[2]) {
 											e2 = e1;
@@ -619,7 +645,7 @@ export function createSearch(p: MatchProblem): Search {
 		if (n >= 2) {
 			const steps = [(R[0].to_m - R[0].from_m) / (n === 2 ? GRID2_FIRST - 1 : GRID3 - 1)];
 			steps.push(n === 3 ? (R[1].to_m - R[1].from_m) / (GRID3 - 1) : 0);
-			const cycles = n === 2 ? 1 : 4;
+			const cycles = n === 2 ? 1 : 3;
 			for (let cyc = 0; cyc < cycles; cyc++) {
 				for (let i = 0; i < n - 1; i++) {
 					z.set(bestZ);
@@ -648,7 +674,7 @@ export function createSearch(p: MatchProblem): Search {
 
 	let raws: Raw[] = [];
 	const keep = p.keep ?? 20;
-	const poolSize = Math.max(keep * 4, 60);
+	const poolSize = Math.max(keep * 3, 40);
 	let refineJobs: Candidate[] | null = null;
 	let done = 0;
 	let refined = 0;
