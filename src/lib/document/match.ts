@@ -413,7 +413,12 @@ export function compileMatchSection(raw: unknown, source: SourceSpec, doc?: Setu
 			if (n0() === before2 && target) {
 				out.substrate = { thickness_m: thickness, index, backR_m: backR, coatedFaceAt_m: target.z_m };
 				target = targetOutsideSubstrate(target, r1, { thickness_m: thickness, index, backR_m: backR });
-			} else if (n0() !== before2) target = null;
+				// The cavity lab sees the mode as it leaves the back face (its spectrum is unchanged).
+				if (out.roundTrip) out.roundTrip = { ...out.roundTrip, mode: { x: { ...target.x }, y: { ...target.y } }, at_m: target.z_m };
+			} else if (n0() !== before2) {
+				target = null;
+				out.roundTrip = null;
+			}
 		}
 	} else if (t.kind === 'ring') {
 		const r = compileRing(t.ring, lam, lamOk, err);
