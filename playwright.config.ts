@@ -7,8 +7,11 @@ const port = Number(process.env.BW_E2E_PORT ?? 4317);
 
 export default defineConfig({
 	testDir: 'tests/e2e',
+	// Per test: each stays well under 20 s on an idle 2-core machine; the limit leaves room for a busy one.
 	timeout: 60_000,
-	workers: 2,
+	// One worker: Chromium already runs several processes per page, so two workers oversubscribe 2 cores.
+	// Set BW_E2E_WORKERS to try another count.
+	workers: Number(process.env.BW_E2E_WORKERS ?? 1),
 	reporter: [['list']],
 	webServer: {
 		command: `node scripts/serve.js --port ${port} --quiet`,

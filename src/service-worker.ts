@@ -4,7 +4,9 @@
 /// <reference lib="webworker" />
 /**
  * Offline support: after the first visit every file of this build is cached, so the app opens and works
- * with no network (labs often have none near the optical tables). A new build replaces the old cache.
+ * with no network (labs often have none near the optical tables). A new build's worker installs and
+ * then waits: the page tells the user a new version is ready and sends "skip-waiting" when they choose
+ * to reload (src/lib/ui/swUpdate.ts); only the very first install takes over at once.
  * Nothing the user enters is sent anywhere; this worker only serves the app's own files.
  */
 import { build, files, prerendered, version } from '$service-worker';
@@ -18,8 +20,13 @@ sw.addEventListener('install', (event) => {
 		caches
 			.open(CACHE)
 			.then((cache) => cache.addAll(ASSETS))
-			.then(() => sw.skipWaiting())
+			// First install: take over at once. An update waits until the user reloads (see above).
+			.then(() => (sw.registration.active ? undefined : sw.skipWaiting()))
 	);
+});
+
+sw.addEventListener('message', (event) => {
+	if ((event.data as { type?: string } | null)?.type === 'skip-waiting') void sw.skipWaiting();
 });
 
 sw.addEventListener('activate', (event) => {

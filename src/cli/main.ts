@@ -4,7 +4,7 @@
  * Each command lives in ./commands/<name>.ts and exports `run(args): Promise<unknown>` (the JSON result,
  * or a string to print as-is) plus a one-line `summary`.
  */
-import { CliInputError, parseArgs } from './args';
+import { CliInputError } from './args';
 import { loadUnitEngine, unitEngineReady, unitEngineWasNeeded } from '../lib/units/parse';
 
 type Command = { summary: string; usage: string; run: (argv: string[]) => Promise<unknown> };
@@ -19,7 +19,10 @@ const registry: Record<string, () => Promise<Command>> = {
 	overlap: () => import('./commands/overlap'),
 	mpe: () => import('./commands/mpe'),
 	hazard: () => import('./commands/hazard'),
-	match: () => import('./commands/match')
+	match: () => import('./commands/match'),
+	spectrum: () => import('./commands/spectrum'),
+	diagnose: () => import('./commands/diagnose'),
+	knife: () => import('./commands/knife')
 };
 
 function help(): string {
@@ -31,20 +34,28 @@ function help(): string {
 	].join('\n');
 }
 
-export async function main(argv: string[]): Promise<number> {
+/** Where main() writes: the process's stdout and stderr, or (in tests) strings. */
+export interface CliOutput {
+	out(text: string): void;
+	err(text: string): void;
+}
+const processOutput: CliOutput = { out: (t) => void process.stdout.write(t), err: (t) => void process.stderr.write(t) };
+
+/** Run one command line; returns the exit code (0 success, 2 bad input, 1 internal error). */
+export async function main(argv: string[], io: CliOutput = processOutput): Promise<number> {
 	const [name, ...rest] = argv;
 	if (!name || name === '--help' || name === 'help') {
-		process.stdout.write(help() + '\n');
+		io.out(help() + '\n');
 		return name ? 0 : 2;
 	}
 	const load = registry[name];
 	if (!load) {
-		process.stderr.write(`command: "${name}" is not a Beamwright command — one of ${Object.keys(registry).join(', ')}\n`);
+		io.err(`command: "${name}" is not a Beamwright command — one of ${Object.keys(registry).join(', ')}\n`);
 		return 2;
 	}
 	const cmd = await load();
-	if (parseArgs(rest).options.has('help')) {
-		process.stdout.write(`${cmd.summary}\nUsage: ${cmd.usage}\n`);
+	if (rest.includes('--help')) {
+		io.out(`${cmd.summary}\nUsage: ${cmd.usage}\n`);
 		return 0;
 	}
 	try {
@@ -60,14 +71,14 @@ export async function main(argv: string[]): Promise<number> {
 			await loadUnitEngine();
 			out = await cmd.run(rest);
 		}
-		process.stdout.write(typeof out === 'string' ? out : JSON.stringify(out, null, 2) + '\n');
+		io.out(typeof out === 'string' ? out : JSON.stringify(out, null, 2) + '\n');
 		return 0;
 	} catch (e) {
 		if (e instanceof CliInputError || e instanceof RangeError) {
-			process.stderr.write(e.message.split('\n')[0] + '\n');
+			io.err(e.message.split('\n')[0] + '\n');
 			return 2;
 		}
-		process.stderr.write(`internal error: ${(e as Error).message}\n`);
+		io.err(`internal error: ${(e as Error).message}\n`);
 		return 1;
 	}
 }

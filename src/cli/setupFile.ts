@@ -1,5 +1,5 @@
 /** Read and validate a setup document named on the command line (the same checks as the app's import). */
-import { readFile } from 'node:fs/promises';
+import { readText } from './readText';
 import { CliInputError } from './args';
 import { parseSetupJson, type SetupDoc } from '../lib/document/schema';
 
@@ -7,7 +7,7 @@ export async function readSetupFile(file: string | undefined, command: string): 
 	if (!file) throw new CliInputError(`setup: a setup JSON file is required — e.g. npx beamwright ${command} setup.json`);
 	let text: string;
 	try {
-		text = await readFile(file, 'utf8');
+		text = await readText(file);
 	} catch {
 		throw new CliInputError(`setup: cannot read "${file}"`);
 	}

@@ -22,10 +22,17 @@ test.beforeEach(async ({ page }) => {
 
 test('the workspace computes the reference beam and keeps the cautions in view', async ({ page }) => {
 	// 514.5 nm, 5 W, 2.83 mm, 1.41 mrad, 0.25 s: E = 18·0.25^0.75/0.25 = 25.46 W/m² (Directive 2006/25/EC
-	// Table 2.2, from memory); formula NOHD (√(4P/(πE)) − d/√2)/(Θ/√2) = 499.6 m; OD 3.71 → 4.
-	await expect(page.getByTestId('hz-mpe-E')).toContainText('25.46 W/m²');
-	await expect(page.getByTestId('hz-nohd-formula')).toHaveText('499.6 m');
-	await expect(page.getByTestId('hz-nohd-beam')).toHaveText('501.6 m');
+	// Table 2.2, row 400–700 nm, read in the French labour code reproduction); formula NOHD
+	// (√(4P/(πE)) − d/√2)/(Θ/√2); along the beam, where the 7 mm aperture-averaged irradiance
+	// P(1 − exp(−2a²/w²))/(πa²) falls to E with w² = w0² + (θz)² (Siegman 1986, §17.1); OD 3.71 → 4.
+	const P = 5, E = (18 * 0.25 ** 0.75) / 0.25, d = 2.83e-3, Th = 1.41e-3, a = 3.5e-3;
+	const formula = (Math.sqrt((4 * P) / (Math.PI * E)) - d / Math.SQRT2) / (Th / Math.SQRT2);
+	const wStar2 = (-2 * a * a) / Math.log(1 - (E * Math.PI * a * a) / P);
+	const beam = Math.sqrt(wStar2 - (d / 2) ** 2) / (Th / 2);
+	await expect(page.getByTestId('hz-mpe-E')).toContainText(`${E.toFixed(2)} W/m²`);
+	await expect(page.getByTestId('hz-nohd-formula')).toHaveText(`${formula.toFixed(1)} m`);
+	await expect(page.getByTestId('hz-nohd-beam')).toHaveText(`${beam.toFixed(1)} m`);
+	await expect(page.getByTestId('hz-provenance')).toContainText('read from the published text');
 	await expect(page.getByTestId('hz-od')).toContainText('at least OD 4');
 	for (const c of cautions) await expect(page.getByTestId('cautions')).toContainText(c);
 	await expect(page.getByTestId('cautions')).toBeVisible();
@@ -60,7 +67,7 @@ test('the whole-lab table imports the demo lab and exports CSV', async ({ page }
 	await page.getByTestId('hz-lab-demo').click();
 	const rows = page.getByTestId('hz-lab-table').locator('tbody tr');
 	await expect(rows).toHaveCount(8);
-	await expect(page.getByTestId('hz-lab-table')).toContainText('Teal line alignment module');
+	await expect(page.getByTestId('hz-lab-table')).toContainText('Demo laser C (514.5 nm)');
 	const download = page.waitForEvent('download');
 	await page.getByTestId('hz-lab-export').click();
 	const file = await download;

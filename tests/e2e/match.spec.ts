@@ -31,6 +31,10 @@ test('pick a target, run the search with progress, put a solution on the bench',
 	expect(await rows.count()).toBeGreaterThan(1);
 	await expect(page.getByTestId('rail-sketch')).toBeVisible();
 	await expectNoBrokenNumbers(page);
+	// The fundamental-mode figure beside the efficiency, the target's 1 % tolerances, positions to 10 µm.
+	await expect(page.getByTestId('match-fundamental').first()).toContainText('%');
+	await expect(page.getByTestId('match-target-tolerance')).toContainText('Rayleigh range');
+	await expect(rows.first().locator('td').nth(1)).toContainText(/at \d+\.\d\d mm/);
 
 	// The first solution's lenses, as the table shows them.
 	const lensText = await rows.first().locator('td').nth(1).innerText();
@@ -79,7 +83,9 @@ test('bad numbers name the field and the range, keep the text, and survive a rel
 	await expect(page.getByTestId('match-run')).toBeDisabled();
 	await page.getByTestId('inv-focal-0').fill('0 mm');
 	await expect(page.getByText(/focal length must be at least 1 mm/).first()).toBeVisible();
-	await page.waitForTimeout(400);
+	// Wait for the autosave to hold both edits (no fixed sleep).
+	await expect.poll(() => page.evaluate(() => Object.values(localStorage).join('\n'))).toContain('0 mm');
+	await expect.poll(() => page.evaluate(() => Object.values(localStorage).join('\n'))).toContain('1e9 m');
 	await page.reload();
 	await expect(page.getByTestId('rail-to')).toHaveValue('1e9 m');
 	await expect(page.getByTestId('inv-focal-0')).toHaveValue('0 mm');
@@ -99,13 +105,13 @@ test('CSV import names each bad line; the demo shelf loads', async ({ page }) =>
 });
 
 test('Cancel stops a slow three-lens search; the page says so and stays usable', async ({ page }) => {
-	// 30 invented lenses, two of each, three lenses per solution: far more combinations than a click needs.
+	// 120 invented lens types, three lenses per solution: a search of a second or more, far longer than a click needs.
 	const rows = ['lens,f_mm,dia_mm,qty'];
-	for (let i = 0; i < 30; i++) rows.push(`slow shelf ${i + 1},${(i % 5 === 0 ? -1 : 1) * (40 + 10 * i)},25.4,2`);
+	for (let i = 0; i < 120; i++) rows.push(`slow shelf ${i + 1},${(i % 5 === 0 ? -1 : 1) * (40 + 5 * i)},25.4,2`);
 	await page.getByText('Import a lens list (CSV)').click();
 	await page.getByTestId('inv-csv').fill(rows.join('\n'));
 	await page.getByTestId('inv-import').click();
-	await expect(page.getByTestId('inventory-table').locator('tbody tr')).toHaveCount(30);
+	await expect(page.getByTestId('inventory-table').locator('tbody tr')).toHaveCount(120);
 	await page.getByTestId('count-3').check();
 
 	await page.getByTestId('match-run').click();
@@ -172,4 +178,13 @@ test('two-mirror cavity with a lens inside; expander read-outs for both axes of 
 	const row = page.getByTestId('expander-row').first();
 	await expect(row).toContainText('○');
 	await expect(row.getByTestId('expander-y').first()).toContainText(/□ \d/);
+});
+
+test('a read-out that cannot compute says why instead of showing nothing', async ({ page }) => {
+	await page.getByTestId('exp-min').fill('abc');
+	await expect(page.getByTestId('expanders-why')).toContainText('Fix the expander fields');
+	await page.getByTestId('exp-min').fill('2');
+	await expect(page.getByTestId('expanders')).toBeVisible();
+	await page.getByTestId('target-at').fill('5 kg');
+	await expect(page.getByTestId('single-lens-why')).toContainText('not valid yet');
 });

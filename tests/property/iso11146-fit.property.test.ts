@@ -5,7 +5,9 @@
  */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { beamMoments, causticDiameter_m, checkPlan, fitCaustic, makeBeamImage, type PhysicalFit } from '../../src/lib/optics/iso11146/index';
+import './seed';
+import { beamMoments, checkPlan, fitCaustic, type PhysicalFit } from '../../src/lib/optics/iso11146/index';
+import { caustic, gaussianImage } from '../beams';
 
 describe('fitCaustic (property)', () => {
 	it('recovers d0, z0, M² of any embedded-Gaussian caustic sampled at ten or more planes', () => {
@@ -20,7 +22,7 @@ describe('fitCaustic (property)', () => {
 				fc.constantFrom('relative' as const, 'plain' as const),
 				(d0, z0, m2, lam, steps, weighting) => {
 					const zR = (Math.PI * d0 * d0) / (4 * m2 * lam);
-					const pts = steps.map((k) => ({ z_m: z0 + 0.1 * k * zR, d_m: causticDiameter_m(d0, z0, m2, lam, z0 + 0.1 * k * zR) }));
+					const pts = steps.map((k) => ({ z_m: z0 + 0.1 * k * zR, d_m: caustic(d0, z0, m2, lam, z0 + 0.1 * k * zR) }));
 					const f = fitCaustic(pts, { wavelength_m: lam, weighting });
 					expect(f.physical).toBe(true);
 					const p = f as PhysicalFit;
@@ -85,7 +87,7 @@ describe('beamMoments (property)', () => {
 				fc.integer({ min: 1, max: 1000 }),
 				(w1, w2, angle, ox, oy, seed) => {
 					// Beams at least 10 pixels wide (the engine warns below that), SNR 1500.
-					const img = makeBeamImage({ width: 200, height: 200, x0: 100 + ox, y0: 100 + oy, w1, w2, angle_rad: angle, peak: 30000, offset: 400, noise: 20, seed });
+					const img = gaussianImage({ width: 200, height: 200, x0: 100 + ox, y0: 100 + oy, w1, w2, angle_rad: angle, peak: 30000, offset: 400, noise: 20, seed });
 					const m = beamMoments(img, { pixelPitch_m: 1 });
 					const big = Math.max(m.dxPrincipal_m, m.dyPrincipal_m);
 					const small = Math.min(m.dxPrincipal_m, m.dyPrincipal_m);

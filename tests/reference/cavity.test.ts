@@ -13,7 +13,7 @@ describe('twoMirrorCavity', () => {
 		expectClose(c.w0_m!, Math.sqrt((lam / (2 * Math.PI)) * Math.sqrt(0.5 * 1.5)), 1e-12);
 		expectClose(c.waistFromMirror1_m!, 0.25, 1e-15);
 	});
-	it('spot on each mirror follows w(z) = w0·sqrt(1 + (z/zR)²) from the waist (Kogelnik & Li 1966, eq. 20)', () => {
+	it('spot on each mirror follows w(z) = w0·sqrt(1 + (z/zR)²) from the waist (Kogelnik & Li 1966, eq. 20, number from memory)', () => {
 		const c = twoMirrorCavity(0.75, 2, 0.6, lam);
 		expect(c.stable).toBe(true);
 		expectClose(c.wMirror1_m!, radiusAt_m(c.w0_m!, c.waistFromMirror1_m!, c.zR_m!), 1e-10);

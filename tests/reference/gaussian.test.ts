@@ -65,8 +65,17 @@ describe('Rayleigh range and far-field angle (Kogelnik & Li, "Laser Beams and Re
 		const theta = farFieldHalfAngle_rad(w0, HeNe);
 		expectClose(theta, HeNe / (Math.PI * w0), 1e-14);
 		const p = propagate({ source: roundSource(w0, 0), elements: [], end_m: 1 });
-		const zFar = 1e5 * rayleighRange_m(w0, HeNe);
+		const zFar = 1e5 * ((Math.PI * w0 * w0) / HeNe); // 10⁵ zR, zR = π·w0²/λ
 		expectClose(beamAt(p, zFar).x.w_m / zFar, theta, 1e-9);
+	});
+
+	it('θ = M²·λ0/(π·n·w0) for a real beam (M² > 1) in a medium (n ≠ 1) (Siegman 1986, eq. 17.16, from memory)', () => {
+		// Worked by hand: M² = 1.7, λ0 = 1064 nm, n = 1.45, w0 = 0.3 mm → θ = 1.7·1064e-9/(π·1.45·3e-4) = 1.3236 mrad.
+		const theta = farFieldHalfAngle_rad(0.3e-3, NdYAG, 1.7, 1.45);
+		expectClose(theta, (1.7 * NdYAG) / (Math.PI * 1.45 * 0.3e-3), 1e-14);
+		expectClose(theta, 1.3236e-3, 1e-4);
+		// Without M² it would be 1.7 times smaller; in vacuum, 1.45 times larger.
+		expectClose(farFieldHalfAngle_rad(0.3e-3, NdYAG, 1.7, 1), (1.7 * NdYAG) / (Math.PI * 0.3e-3), 1e-14);
 	});
 
 	it('refuses a non-positive waist or wavelength and M² < 1 with a message naming the rule', () => {
@@ -228,7 +237,7 @@ describe('interfaces and media (Siegman 1986, §15.2 reduced matrices; Saleh & T
 		const w0 = 0.2e-3;
 		const p = propagate({ source: roundSource(w0, 0.1, NdYAG, 1, n), elements: [], end_m: 1 });
 		const wst = lastWaist(p);
-		expectClose(wst.zR_m, n * rayleighRange_m(w0, NdYAG), 1e-12);
+		expectClose(wst.zR_m, (Math.PI * n * w0 * w0) / NdYAG, 1e-12);
 		expectClose(beamAt(p, 0.1 + wst.zR_m).x.w_m, Math.SQRT2 * w0, 1e-12);
 	});
 
@@ -241,7 +250,7 @@ describe('interfaces and media (Siegman 1986, §15.2 reduced matrices; Saleh & T
 		const wst = lastWaist(p);
 		expectClose(wst.z_m - zI, n * L, 1e-12);
 		expectClose(wst.w0_m, w0, 1e-12);
-		expectClose(wst.zR_m, n * rayleighRange_m(w0, NdYAG), 1e-12);
+		expectClose(wst.zR_m, (Math.PI * n * w0 * w0) / NdYAG, 1e-12);
 	});
 
 	it('a curved interface images by n1/s + n2/s′ = (n2 − n1)/R (Saleh & Teich, ch. 1, paraxial refraction, from memory)', () => {
@@ -289,7 +298,7 @@ describe('tilted mirrors and Brewster plates (Kogelnik, Ippen, Dienes & Shank, "
 		const theta = (20 * Math.PI) / 180;
 		const p = propagate({ source: roundSource(4e-3, 0, NdYAG), elements: [el('m', 0, { kind: 'mirror', r_m: R, angle_rad: theta, plane: 'x' })], end_m: 1 });
 		// Self 1983, eq. 9 with s = 0: the waist lies at f/(1 + (f/zR)²), → f for zR ≫ f.
-		const zR = rayleighRange_m(4e-3, NdYAG);
+		const zR = (Math.PI * 4e-3 * 4e-3) / NdYAG; // zR = π·w0²/λ
 		const at = (f: number) => f / (1 + (f / zR) ** 2);
 		expectClose(lastWaist(p, 'x').z_m, at((R / 2) * Math.cos(theta)), 1e-9);
 		expectClose(lastWaist(p, 'y').z_m, at(R / 2 / Math.cos(theta)), 1e-9);
@@ -427,7 +436,7 @@ describe('source resolution (Siegman 1986, ch. 17: θ = M²λ/(π·n·w0); Kogel
 
 	it('two diameters no beam of this M² can pass through are refused with a reason', () => {
 		// 2 mm at both ends of 1 km: the smallest beam radius at 500 m from any waist is sqrt(λ·500 m/π) ≈ 10 mm
-		// (minimum of w0² + (λz/(π·w0))² over w0 — Kogelnik & Li 1966, eq. 20).
+		// (minimum of w0² + (λz/(π·w0))² over w0 — Kogelnik & Li 1966, eq. 20, number from memory).
 		expect(() => waistFromTwoDiameters(2e-3, 0, 2e-3, 1000, HeNe, 1)).toThrow(/cannot belong to one beam/);
 	});
 

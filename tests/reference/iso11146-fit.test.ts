@@ -6,12 +6,14 @@
  * - ISO 11146-1:2005, clause 3 (definitions: Θ = 4·M²·λ/(π·d0) for the embedded-Gaussian caustic
  *   d(z)² = d0² + Θ²·(z − z0)²); from memory.
  * - H. Kogelnik, T. Li, "Laser Beams and Resonators", Applied Optics 5(10), 1550–1567 (1966),
- *   eqs. 19–20: w(z) = w0·√(1 + (z/zR)²), zR = π·w0²/λ.
+ *   eq. 20 (number from memory): w(z) = w0·√(1 + (z/zR)²), with zR = π·w0²/λ.
  * - JCGM 100:2008 (GUM), eq. 13: first-order propagation of the covariance.
  */
 import { describe, expect, it } from 'vitest';
 import { expectClose } from '../helpers';
 import { causticDiameter_m, fitCaustic, sampleCaustic, seededNormal, type PhysicalFit } from '../../src/lib/optics/iso11146/index';
+import { fitQuadratic } from '../../src/lib/optics/iso11146/lsq';
+import { caustic } from '../beams';
 
 const lambda = 1064e-9;
 
@@ -21,11 +23,37 @@ function planes(d0: number, z0: number, m2: number, lam: number, ks: number[]) {
 	const zR = d0 / theta;
 	return ks.map((k) => {
 		const z = z0 + k * zR;
-		return { z_m: z, d_m: causticDiameter_m(d0, z0, m2, lam, z) };
+		return { z_m: z, d_m: caustic(d0, z0, m2, lam, z) };
 	});
 }
 
 const isoPlan = [-0.9, -0.5, -0.1, 0.3, 0.8, 2.2, 2.6, 3.1, 3.7, 4.5];
+
+describe('fit covariance: s²·(XᵀWX)⁻¹ with s² = χ²/(n − 3) (N. R. Draper, H. Smith, "Applied Regression Analysis", 3rd ed. 1998, ch. 5; from memory)', () => {
+	// Worked by hand: u = −1, −1, 0, 0, 1, 1 and y = 1, 3, 0, 2, 1, 3 (w = 1). The pairs average 2, 1, 2,
+	// so the fit is y = 1 + 0·u + 1·u² with residuals ±1: χ² = 6, n − 3 = 3 degrees of freedom, s² = 2.
+	// XᵀX = [[6, 0, 4], [0, 4, 0], [4, 0, 4]]; its inverse is [[1/2, 0, −1/2], [0, 1/4, 0], [−1/2, 0, 3/4]].
+	// Covariance = 2 × that: var A = 1, var B = 1/2, var C = 3/2, cov(A, C) = −1.
+	it('scales by χ²/(n − 3), not χ²/n, on a six-point case worked by hand', () => {
+		const q = fitQuadratic([-1, -1, 0, 0, 1, 1], [1, 3, 0, 2, 1, 3], [1, 1, 1, 1, 1, 1])!;
+		expect(q).not.toBeNull();
+		expectClose(q.coef[0], 1, 1e-12, 'A');
+		expect(Math.abs(q.coef[1])).toBeLessThan(1e-12);
+		expectClose(q.coef[2], 1, 1e-12, 'C');
+		expectClose(q.chi2, 6, 1e-12, 'χ²');
+		expect(q.dof).toBe(3);
+		const expected = [1, 0, -1, 0, 0.5, 0, -1, 0, 1.5];
+		for (let k = 0; k < 9; k++) {
+			if (expected[k] === 0) expect(Math.abs(q.cov[k]), `cov[${k}]`).toBeLessThan(1e-12);
+			else expectClose(q.cov[k], expected[k], 1e-12, `cov[${k}]`);
+		}
+	});
+	it('an exact fit through three planes carries no residual information: zero covariance', () => {
+		const q = fitQuadratic([-1, 0, 1], [2, 1, 2], [1, 1, 1])!;
+		expect(q.dof).toBe(0);
+		expect(q.cov.every((v) => v === 0)).toBe(true);
+	});
+});
 
 describe('fitCaustic', () => {
 	it('returns the parameters of an exact hyperbola (ISO 11146-1:2005, clause 9; from memory)', () => {
@@ -52,7 +80,7 @@ describe('fitCaustic', () => {
 		expectClose(f.c, theta * theta, 1e-8, 'c');
 	});
 
-	it('finds M² = 1 and zR = π·w0²/λ for a TEM00 caustic w(z) = w0·√(1 + (z/zR)²) (Kogelnik & Li 1966, eqs. 19–20)', () => {
+	it('finds M² = 1 and zR = π·w0²/λ for a TEM00 caustic w(z) = w0·√(1 + (z/zR)²) (Kogelnik & Li 1966, eq. 20, number from memory)', () => {
 		const w0 = 0.3e-3, lam = 632.8e-9;
 		const zR = (Math.PI * w0 * w0) / lam;
 		const pts = [-3.5, -2.8, -2.1, -0.8, -0.4, 0, 0.3, 0.7, 2.4, 3.3].map((k) => ({ z_m: 1 + k * zR, d_m: 2 * w0 * Math.sqrt(1 + k * k) }));
@@ -154,7 +182,7 @@ describe('sampleCaustic', () => {
 		const s = sampleCaustic(f, -1, 1, 5);
 		expect(Array.from(s.z_m)).toEqual([-1, -0.5, 0, 0.5, 1]);
 		expectClose(s.d_m[2], 1e-3, 1e-9);
-		expectClose(s.d_m[4], causticDiameter_m(1e-3, 0, 1, lambda, 1), 1e-9);
+		expectClose(s.d_m[4], caustic(1e-3, 0, 1, lambda, 1), 1e-9);
 	});
 
 	it('throws for an empty range or fewer than two samples', () => {

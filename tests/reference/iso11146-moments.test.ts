@@ -1,6 +1,6 @@
 /**
  * Second-moment widths of beam images, checked on synthetic images made in the test by the documented
- * generator makeBeamImage (src/lib/optics/iso11146/synthetic.ts); no binary fixtures.
+ * generator gaussianImage (tests/beams.ts, written from the formula, not the engine's); no binary fixtures.
  * Sources:
  * - ISO 11146-1:2005, clause 3 (first and second moments, d_x = 4σx, principal axes, azimuth
  *   φ = ½·arctan(2σxy/(σx² − σy²)), ellipticity, circular when ε > 0.87, d = 2√2·√(σx² + σy²)); from memory.
@@ -14,14 +14,15 @@
 import { describe, expect, it } from 'vitest';
 import { encode } from 'fast-png';
 import { expectClose } from '../helpers';
-import { beamMoments, estimateBackground, makeBeamImage, fitWidths, planesFromImages, causticDiameter_m, type PhysicalFit } from '../../src/lib/optics/iso11146/index';
+import { beamMoments, estimateBackground, fitWidths, planesFromImages, type PhysicalFit } from '../../src/lib/optics/iso11146/index';
+import { caustic, gaussianImage } from '../beams';
 import { decodeBeamPng, parseMatrixCsv, decodeBeamImage } from '../../src/lib/io/beamImage';
 
 const deg = Math.PI / 180;
 
 describe('beamMoments', () => {
 	it('gives D4σ = 2w for a clean round Gaussian (Siegman 1986 §17.1; ISO 11146-1 clause 3, from memory)', () => {
-		const img = makeBeamImage({ width: 256, height: 256, x0: 128, y0: 120, w1: 40, w2: 40, peak: 1000, offset: 500, bits: 0 });
+		const img = gaussianImage({ width: 256, height: 256, x0: 128, y0: 120, w1: 40, w2: 40, peak: 1000, offset: 500, bits: 0 });
 		const m = beamMoments(img, { pixelPitch_m: 5.5e-6 });
 		expectClose(m.dx_m, 80 * 5.5e-6, 1e-6, 'd_x');
 		expectClose(m.dy_m, 80 * 5.5e-6, 1e-6, 'd_y');
@@ -39,7 +40,7 @@ describe('beamMoments', () => {
 		// Noise 80 counts on a 40 000-count peak (SNR 500). Expected scatter of d at this SNR is about
 		// 0.2 % (noise inside the 3× area plus the offset error left from ~80 000 background pixels).
 		for (const seed of [1, 2, 3, 4, 5]) {
-			const img = makeBeamImage({
+			const img = gaussianImage({
 				width: 400, height: 320, x0: 190.3 + seed, y0: 161.7 - seed, w1: 45, w2: 30, peak: 40000,
 				offset: 3000, tiltX: 2.5, tiltY: -1.5, noise: 80, bits: 16, seed
 			});
@@ -60,7 +61,7 @@ describe('beamMoments', () => {
 		// Noise 200 counts on 40 000 (SNR 200): single images scatter by about 0.5 %, the mean must not drift.
 		const ex: number[] = [];
 		for (let seed = 1; seed <= 20; seed++) {
-			const img = makeBeamImage({ width: 400, height: 320, x0: 190 + (seed % 5), y0: 160, w1: 45, w2: 30, peak: 40000, offset: 3000, tiltX: 2.5, noise: 200, seed });
+			const img = gaussianImage({ width: 400, height: 320, x0: 190 + (seed % 5), y0: 160, w1: 45, w2: 30, peak: 40000, offset: 3000, tiltX: 2.5, noise: 200, seed });
 			ex.push(beamMoments(img, { pixelPitch_m: 1e-6 }).dx_m / 90e-6 - 1);
 		}
 		const mean = ex.reduce((a, b) => a + b, 0) / ex.length;
@@ -71,7 +72,7 @@ describe('beamMoments', () => {
 
 	it('needs the background removed: the same image without subtraction would be far off', () => {
 		// Guard that the check above can fail: offset 3000 counts left in a 3× area inflates σ² several-fold.
-		const img = makeBeamImage({ width: 400, height: 320, x0: 190, y0: 160, w1: 45, w2: 30, peak: 40000, offset: 3000, bits: 16 });
+		const img = gaussianImage({ width: 400, height: 320, x0: 190, y0: 160, w1: 45, w2: 30, peak: 40000, offset: 3000, bits: 16 });
 		const m = beamMoments(img, { pixelPitch_m: 1e-6 });
 		expectClose(m.dx_m, 90e-6, 0.01);
 		const crude = { ...img, data: img.data };
@@ -87,7 +88,7 @@ describe('beamMoments', () => {
 
 	it('gives the orientation and principal widths of a turned elliptical Gaussian (ISO 11146-1 clause 3, from memory)', () => {
 		for (const a of [25, -30, 10]) {
-			const img = makeBeamImage({ width: 384, height: 384, x0: 192, y0: 190, w1: 60, w2: 25, angle_rad: a * deg, peak: 20000, offset: 500, noise: 50, seed: 9 });
+			const img = gaussianImage({ width: 384, height: 384, x0: 192, y0: 190, w1: 60, w2: 25, angle_rad: a * deg, peak: 20000, offset: 500, noise: 50, seed: 9 });
 			const m = beamMoments(img, { pixelPitch_m: 1e-6 });
 			expect(Math.abs(m.orientation_rad / deg - a)).toBeLessThan(0.3);
 			expectClose(m.dxPrincipal_m, 120e-6, 0.01, `${a}° d_x'`);
@@ -102,7 +103,7 @@ describe('beamMoments', () => {
 	});
 
 	it('reports φ for the principal axis nearest x: a beam whose long axis is at 60° has φ = −30° and d_x\' the short width', () => {
-		const img = makeBeamImage({ width: 384, height: 384, x0: 192, y0: 192, w1: 60, w2: 25, angle_rad: 60 * deg, peak: 20000, bits: 0 });
+		const img = gaussianImage({ width: 384, height: 384, x0: 192, y0: 192, w1: 60, w2: 25, angle_rad: 60 * deg, peak: 20000, bits: 0 });
 		const m = beamMoments(img, { pixelPitch_m: 1e-6 });
 		expectClose(m.orientation_rad, -30 * deg, 1e-4, 'φ');
 		expectClose(m.dxPrincipal_m, 50e-6, 1e-4, "d_x'");
@@ -119,7 +120,7 @@ describe('beamMoments', () => {
 	});
 
 	it('reads an 8-bit greyscale PNG made by fast-png and keeps widths within 1 %', () => {
-		const img = makeBeamImage({ width: 400, height: 400, x0: 200, y0: 205, w1: 60, w2: 50, peak: 220, offset: 15, noise: 1.2, bits: 8, seed: 7 });
+		const img = gaussianImage({ width: 400, height: 400, x0: 200, y0: 205, w1: 60, w2: 50, peak: 220, offset: 15, noise: 1.2, bits: 8, seed: 7 });
 		const png = encode({ width: 400, height: 400, data: img.data as Uint8Array, depth: 8, channels: 1 });
 		const back = decodeBeamPng(png);
 		expect(back.maxValue).toBe(255);
@@ -130,7 +131,7 @@ describe('beamMoments', () => {
 	});
 
 	it('reads a 16-bit greyscale PNG (with alpha) and a CSV matrix to the same widths', () => {
-		const img = makeBeamImage({ width: 96, height: 80, x0: 47, y0: 41, w1: 12, w2: 9, peak: 50000, offset: 100, bits: 16 });
+		const img = gaussianImage({ width: 96, height: 80, x0: 47, y0: 41, w1: 12, w2: 9, peak: 50000, offset: 100, bits: 16 });
 		const ga = new Uint16Array(96 * 80 * 2);
 		for (let i = 0; i < 96 * 80; i++) {
 			ga[2 * i] = img.data[i];
@@ -149,14 +150,14 @@ describe('beamMoments', () => {
 	});
 
 	it('warns when the beam is cut by the image edge or saturated', () => {
-		const cut = makeBeamImage({ width: 128, height: 128, x0: 10, y0: 64, w1: 20, w2: 20, peak: 1000, offset: 10 });
+		const cut = gaussianImage({ width: 128, height: 128, x0: 10, y0: 64, w1: 20, w2: 20, peak: 1000, offset: 10 });
 		expect(beamMoments(cut, { pixelPitch_m: 1e-6 }).warnings.join(' ')).toMatch(/cut by the image edge/);
-		const sat = makeBeamImage({ width: 128, height: 128, x0: 64, y0: 64, w1: 15, w2: 15, peak: 400, offset: 10, bits: 8 });
+		const sat = gaussianImage({ width: 128, height: 128, x0: 64, y0: 64, w1: 15, w2: 15, peak: 400, offset: 10, bits: 8 });
 		expect(beamMoments(sat, { pixelPitch_m: 1e-6 }).warnings.join(' ')).toMatch(/saturated/);
 	});
 
 	it('zeroing noise below 3σ (clip) shrinks a Gaussian, which is why clipping is off by default', () => {
-		const img = makeBeamImage({ width: 300, height: 300, x0: 150, y0: 150, w1: 40, w2: 40, peak: 5000, offset: 1000, noise: 20, seed: 3 });
+		const img = gaussianImage({ width: 300, height: 300, x0: 150, y0: 150, w1: 40, w2: 40, peak: 5000, offset: 1000, noise: 20, seed: 3 });
 		const plain = beamMoments(img, { pixelPitch_m: 1e-6 });
 		const clipped = beamMoments(img, { pixelPitch_m: 1e-6, clip_sigma: 3 });
 		expectClose(plain.dx_m, 80e-6, 0.01);
@@ -166,7 +167,7 @@ describe('beamMoments', () => {
 	});
 
 	it('throws for an image with no beam, a bad pixel pitch and a tiny image', () => {
-		const flat = makeBeamImage({ width: 64, height: 64, x0: 32, y0: 32, w1: 5, w2: 5, peak: 0, offset: 100, noise: 5, seed: 1 });
+		const flat = gaussianImage({ width: 64, height: 64, x0: 32, y0: 32, w1: 5, w2: 5, peak: 0, offset: 100, noise: 5, seed: 1 });
 		expect(() => beamMoments(flat, { pixelPitch_m: 1e-6 })).toThrow(/image must show a beam above the background noise/);
 		expect(() => beamMoments(flat, { pixelPitch_m: 0 })).toThrow(/pixel pitch must be > 0 m — got 0 m/);
 		expect(() => beamMoments({ width: 4, height: 4, data: new Uint8Array(16) }, { pixelPitch_m: 1e-6 })).toThrow(/at least 8 × 8 pixels — got 4 × 4/);
@@ -188,7 +189,7 @@ describe('estimateBackground', () => {
 	});
 
 	it('throws for a frame wider than a quarter of the image', () => {
-		const img = makeBeamImage({ width: 32, height: 32, x0: 16, y0: 16, w1: 3, w2: 3, peak: 10 });
+		const img = gaussianImage({ width: 32, height: 32, x0: 16, y0: 16, w1: 3, w2: 3, peak: 10 });
 		expect(() => estimateBackground(img, { frame_px: 9 })).toThrow(/from 1 to 8/);
 	});
 });
@@ -200,9 +201,9 @@ describe('images along z feed the caustic fit', () => {
 		const zRx = truth.x.d0 / ((4 * truth.x.m2 * lam) / (Math.PI * truth.x.d0));
 		const zs = [-0.9, -0.5, -0.2, 0.2, 0.6, -2.6, -2.2, 2.2, 2.6, 3.0].map((k) => truth.x.z0 + k * zRx);
 		const images = zs.map((z, i) => {
-			const dx = causticDiameter_m(truth.x.d0, truth.x.z0, truth.x.m2, lam, z);
-			const dy = causticDiameter_m(truth.y.d0, truth.y.z0, truth.y.m2, lam, z);
-			const img = makeBeamImage({ width: 700, height: 700, x0: 350, y0: 345, w1: dx / 2 / pitch, w2: dy / 2 / pitch, peak: 30000, offset: 800, noise: 60, seed: i + 1 });
+			const dx = caustic(truth.x.d0, truth.x.z0, truth.x.m2, lam, z);
+			const dy = caustic(truth.y.d0, truth.y.z0, truth.y.m2, lam, z);
+			const img = gaussianImage({ width: 700, height: 700, x0: 350, y0: 345, w1: dx / 2 / pitch, w2: dy / 2 / pitch, peak: 30000, offset: 800, noise: 60, seed: i + 1 });
 			const moments = beamMoments(img, { pixelPitch_m: pitch });
 			expect(moments.warnings).toEqual([]);
 			return { z_m: z, moments, label: `#${i + 1}` };

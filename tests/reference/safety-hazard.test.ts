@@ -36,7 +36,7 @@ function erf(x: number): number {
 
 // The 514.5 nm, 5 W beam of the issue: 1/e diameter a = 2 mm and divergence φ = 1 mrad, i.e. 1/e² values ×√2.
 const P = 5;
-const E_MPE = (18 * 0.25 ** 0.75) / 0.25; // Directive 2006/25/EC Table 2.2, 400–700 nm, 0.25 s (from memory): 25.46 W/m²
+const E_MPE = (18 * 0.25 ** 0.75) / 0.25; // Directive 2006/25/EC Table 2.2, row 400–700 nm, 1.8·10⁻⁵–10 s (read in the French labour code reproduction): 25.46 W/m²
 const d = 2e-3 * Math.SQRT2;
 const Th = 1e-3 * Math.SQRT2;
 
@@ -65,6 +65,11 @@ describe('requiredOpticalDensity — OD = log10(H/H_MPE), IEC TR 60825-14 / ANSI
 	it('an exact power of ten needs exactly that OD; below the limit none', () => {
 		expect(requiredOpticalDensity(1000, 1).odWhole).toBe(3);
 		expect(requiredOpticalDensity(0.5, 1)).toEqual({ od: 0, odWhole: 0 });
+	});
+	it('rounded up, never to the nearest: OD 3.2 needs eyewear of OD 4 (common practice: the marked OD is at or above the need)', () => {
+		const od = requiredOpticalDensity(10 ** 3.2, 1);
+		expectClose(od.od, 3.2, 1e-12);
+		expect(od.odWhole).toBe(4);
 	});
 });
 

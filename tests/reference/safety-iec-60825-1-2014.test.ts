@@ -113,6 +113,21 @@ describe('IEC 60825-1:2014 factors (from memory)', () => {
 		expectClose(evaluateEdition(ed, { wavelength_m: 10.6e-6, duration_s: 1 }).limitingAperture_m, 1.5e-3);
 		expect(evaluateEdition(ed, { wavelength_m: 1064e-9, duration_s: 1 }).limitingAperture_m).toBe(7e-3);
 	});
+	it('limiting aperture 1.5·t^0.375 mm for 0.35–10 s in the far IR (from memory): t = 3 s → 2.2647 mm', () => {
+		const expected_mm = 1.5 * Math.exp(0.375 * Math.log(3));
+		expectClose(evaluateEdition(ed, { wavelength_m: 10.6e-6, duration_s: 3 }).limitingAperture_m * 1e3, expected_mm, 1e-12);
+		expectClose(evaluateEdition(ed, { wavelength_m: 1550e-9, duration_s: 3 }).limitingAperture_m * 1e3, expected_mm, 1e-12);
+	});
+	it('skin: limiting aperture 3.5 mm at every wavelength and duration (from memory)', () => {
+		for (const nm of [250, 532, 1064, 1550, 10600, 500_000])
+			for (const t of [1e-9, 0.1, 3, 100]) expect(evaluateEdition(ed, { wavelength_m: nm * 1e-9, duration_s: t, target: 'skin' }).limitingAperture_m).toBe(3.5e-3);
+	});
+	it('every result carries the label "values recalled (ICNIRP 2013), not verified against the standard"', () => {
+		const r = evaluateEdition(ed, { wavelength_m: 532e-9, duration_s: 0.25 });
+		expect(r.provenance).toBe('recalled');
+		expect(r.provenanceLine).toContain('values recalled (ICNIRP 2013), not verified against the standard');
+		for (const row of ed.rows) expect(row.provenance).toBe('recalled');
+	});
 });
 
 describe('IEC 60825-1:2014 limits are continuous at break times where the printed forms join', () => {
@@ -150,7 +165,21 @@ describe('IEC 60825-1:2014 repetitive pulses: C5 = N^−0.25 on retinal thermal 
 	});
 });
 
-describe('editions compared: the default is the stricter (DESIGN.md)', () => {
+describe('editions compared: the default is the stricter', () => {
+	it('pulse train 532 nm, 10 ns at 10 kHz for 0.25 s: the editions differ and the IEC rule 3 value is reported', () => {
+		// Directive Table 2.2 (read): 5·10⁻³ J/m² per 10 ns pulse; IEC (from memory): 2·10⁻³ J/m². N = 2500, neither groups
+		// (period 100 µs > T_min 18 µs and T_i 5 µs), so rule 3 gives H·N^−0.25 in both.
+		const input = { wavelength_m: 532e-9, duration_s: 0.25, pulseWidth_s: 10e-9, repetitionRate_Hz: 1e4 };
+		const eu = 5e-3 * 2500 ** -0.25;
+		const iec = 2e-3 * 2500 ** -0.25;
+		const r = evaluatePulseTrain('stricter', input);
+		expect(r.standardId).toBe('iec-60825-1-2014');
+		expectClose(r.perPulse_J_m2, iec, 1e-12);
+		expect(r.rule).toBe('repetitive pulse (C_P)');
+		expect(r.comparedWith?.standardId).toBe('eu-2006-25');
+		expectClose(r.comparedWith!.perPulse_J_m2, eu, 1e-12);
+		expect(r.provenanceLine).toContain('values recalled (ICNIRP 2013)');
+	});
 	it('10 ns at 532 nm: IEC 2·10⁻³ J/m² is stricter than the Directive 5·10⁻³ J/m²', () => {
 		const r = evaluateLimit('stricter', { wavelength_m: 532e-9, duration_s: 10e-9 });
 		expect(r.standardId).toBe('iec-60825-1-2014');

@@ -1,29 +1,14 @@
 /**
- * The CLI end to end: `node bin/beamwright.js …` as a user runs it (`npx beamwright …`).
- * All runs start together in beforeAll: each pays the TypeScript loader's start-up once.
+ * The CLI's `beam` and `propagate` commands, run in-process through the same main() as
+ * `bin/beamwright.js` (tests/cli.ts); the packaging test starts the real program.
  */
 import { describe, it, expect, beforeAll, afterAll } from 'vitest';
-import { execFile } from 'node:child_process';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { expectClose } from '../helpers';
+import { runCli, type CliRun as Run } from '../cli';
 import { demoSetup } from '../../src/lib/document';
-
-interface Run {
-	code: number;
-	stdout: string;
-	stderr: string;
-}
-
-function cli(args: string[]): Promise<Run> {
-	return new Promise((resolve) => {
-		execFile(process.execPath, ['bin/beamwright.js', ...args], { cwd: process.cwd(), timeout: 90_000 }, (err, stdout, stderr) => {
-			const code = err ? (typeof err.code === 'number' ? err.code : -1) : 0;
-			resolve({ code, stdout, stderr });
-		});
-	});
-}
 
 const dir = mkdtempSync(join(tmpdir(), 'beamwright-cli-'));
 const demoFile = join(dir, 'demo.json');
@@ -43,10 +28,8 @@ const plan: Record<string, string[]> = {
 };
 
 beforeAll(async () => {
-	const names = Object.keys(plan);
-	const results = await Promise.all(names.map((n) => cli(plan[n])));
-	names.forEach((n, i) => (runs[n] = results[i]));
-}, 180_000);
+	for (const n of Object.keys(plan)) runs[n] = await runCli(...plan[n]);
+});
 
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
@@ -118,7 +101,7 @@ describe('beamwright propagate', () => {
 		expectClose(out.wavelength_m, 1064e-9, 1e-12);
 		expect(out.m2).toEqual({ x: 1.3, y: 1.6 });
 		expect(out.elements.map((e: { label: string }) => e.label)).toEqual(['L1', 'L2', 'M1', 'M2']);
-		// The beam arriving at L1 (250 mm) is the source's free-space beam (Kogelnik & Li 1966, eq. 20).
+		// The beam arriving at L1 (250 mm) is the source's free-space beam (Kogelnik & Li 1966, eq. 20, number from memory).
 		const lam = 1064e-9;
 		for (const [ax, m2, w0, z0] of [['x', 1.3, 0.45e-3, -0.04], ['y', 1.6, 0.4e-3, -0.01]] as const) {
 			const zR = (Math.PI * w0 * w0) / (m2 * lam);

@@ -1,23 +1,17 @@
 /**
- * The `fit` and `moments` commands, run as a user would: `node bin/beamwright.js …`.
- * Input files are made in the test (widths from the ISO 11146-1 caustic, images by makeBeamImage).
+ * The `fit` and `moments` commands, run in-process through the CLI's main() (tests/cli.ts).
+ * Input files are made in the test from the closed forms in tests/beams.ts (caustic, Gaussian image).
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { execFile } from 'node:child_process';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { encode } from 'fast-png';
 import { expectClose } from '../helpers';
-import { causticDiameter_m, makeBeamImage } from '../../src/lib/optics/iso11146/index';
+import { runCli } from '../cli';
+import { caustic, gaussianImage } from '../beams';
 
-function cli(args: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
-	return new Promise((resolve) => {
-		execFile('node', ['bin/beamwright.js', ...args], { cwd: process.cwd() }, (err, stdout, stderr) => {
-			resolve({ code: err ? ((err as NodeJS.ErrnoException & { code?: number }).code as unknown as number) ?? 1 : 0, stdout, stderr });
-		});
-	});
-}
+const cli = (args: string[]) => runCli(...args);
 
 let dir = '';
 const lam = 1064e-9;
@@ -31,8 +25,8 @@ beforeAll(() => {
 	const single = ['z,d'];
 	for (const k of ks) {
 		const z = 0.2 + k * zR;
-		const dx = causticDiameter_m(1e-3, 0.2, 1.3, lam, z);
-		const dy = causticDiameter_m(0.9e-3, 0.21, 1.5, lam, z);
+		const dx = caustic(1e-3, 0.2, 1.3, lam, z);
+		const dy = caustic(0.9e-3, 0.21, 1.5, lam, z);
 		xy.push(`${z * 1e3},${dx * 1e6},${dy * 1e6}`);
 		single.push(`${z * 1e3},${dx * 1e6}`);
 	}
@@ -40,7 +34,7 @@ beforeAll(() => {
 	writeFileSync(join(dir, 'xy.csv'), xy.join('\n'));
 	writeFileSync(join(dir, 'd.csv'), single.join('\n'));
 	writeFileSync(join(dir, 'bad.csv'), 'z,d\n1,abc\n2,-1\n3,5\n');
-	const img = makeBeamImage({ width: 200, height: 160, x0: 101, y0: 77, w1: 20, w2: 14, peak: 30000, offset: 500, noise: 20, seed: 2 });
+	const img = gaussianImage({ width: 200, height: 160, x0: 101, y0: 77, w1: 20, w2: 14, peak: 30000, offset: 500, noise: 20, seed: 2 });
 	writeFileSync(join(dir, 'beam.png'), encode({ width: 200, height: 160, data: img.data as Uint16Array, depth: 16, channels: 1 }));
 	writeFileSync(join(dir, 'rgb.png'), encode({ width: 16, height: 16, data: new Uint8Array(16 * 16 * 3), depth: 8, channels: 3 }));
 });
@@ -62,7 +56,7 @@ describe('beamwright fit', () => {
 		expectClose(out.y.m2, 1.5, 1e-6, 'M²y');
 		expectClose(out.x.d0_m, 1e-3, 1e-6, 'd0x');
 		expectClose(out.y.z0_m, 0.21, 1e-6, 'z0y');
-	}, 30000);
+	});
 
 	it('uses the key d for a single diameter column and lists flagged lines', async () => {
 		const r = await cli(['fit', join(dir, 'd.csv'), '--wavelength', '1.064um', '--z-unit', 'mm', '--d-unit', 'um']);
@@ -71,13 +65,13 @@ describe('beamwright fit', () => {
 		expect(out.x).toBeUndefined();
 		expectClose(out.d.m2, 1.3, 1e-6);
 		expect(out.flagged).toEqual([{ line: 12, problem: 'd must be > 0 — got -5', text: '999,-5' }]);
-	}, 30000);
+	});
 
 	it('exits 2 with one line naming the argument for bad input', async () => {
 		const cases: Array<[string[], RegExp]> = [
 			[['fit', join(dir, 'xy.csv')], /^--wavelength: required/],
-			[['fit', join(dir, 'xy.csv'), '--wavelength', '5 kg'], /^--wavelength: .* wrong unit/],
-			[['fit', join(dir, 'xy.csv'), '--wavelength', '1064nm', '--z-unit', 'parsec2'], /^--z-unit: "parsec2" is not a length unit/],
+			[['fit', join(dir, 'xy.csv'), '--wavelength', '5 s'], /^--wavelength: .* wrong unit/],
+			[['fit', join(dir, 'xy.csv'), '--wavelength', '1064nm', '--z-unit', 's'], /^--z-unit: "s" is not a length unit/],
 			[['fit', join(dir, 'missing.csv'), '--wavelength', '1064nm'], /^widths file: cannot read/],
 			[['fit', join(dir, 'bad.csv'), '--wavelength', '1064nm'], /at least 3 planes at different z — got 1 usable \(2 lines flagged: 2, 3/],
 			[['fit', join(dir, 'xy.csv'), '--wavelength', '1064nm', '--weighting', 'heavy'], /^--weighting: "heavy" is not accepted/]
@@ -88,7 +82,7 @@ describe('beamwright fit', () => {
 			expect(r.stderr.trim().split('\n')).toHaveLength(1);
 			expect(r.stderr).toMatch(re);
 		}
-	}, 60000);
+	});
 });
 
 describe('beamwright moments', () => {
@@ -100,7 +94,7 @@ describe('beamwright moments', () => {
 		expectClose(out.dx_m, 40 * 5.5e-6, 0.01);
 		expectClose(out.dy_m, 28 * 5.5e-6, 0.01);
 		for (const key of ['orientation_rad', 'dxPrincipal_m', 'dyPrincipal_m', 'ellipticity', 'dCircular_m']) expect(typeof out[key]).toBe('number');
-	}, 30000);
+	});
 
 	it('exits 2 for a colour PNG, a missing pitch and an out-of-range area', async () => {
 		const cases: Array<[string[], RegExp]> = [
@@ -113,5 +107,5 @@ describe('beamwright moments', () => {
 			expect(r.code, args.join(' ')).toBe(2);
 			expect(r.stderr).toMatch(re);
 		}
-	}, 60000);
+	});
 });

@@ -55,7 +55,7 @@ describe('toBenchSource', () => {
 		expect(out.source.x.m2).toBe(1);
 		expect(out.notes[0]).toMatch(/consistent with 1 and is used as 1/);
 		const far = planes({ d0: 1e-3, z0: 0.2, m2: 0.7 }, { d0: 1e-3, z0: 0.2, m2: 0.7 }).map((p) => ({ z_m: p.z_m, d_m: [p.d_m[0]] }));
-		expect(() => toBenchSource(fitWidths(far, 'd', { wavelength_m: lam }), lam)).toThrow(/M² must be ≥ 1 for a real beam — fitted 0.700/);
+		expect(() => toBenchSource(fitWidths(far, 'd', { wavelength_m: lam }), lam)).toThrow(/the d fit must be physical to become a source — the fitted M² = 0\.700( ± [0-9.]+)? is below 1/);
 	});
 
 	it('refuses a fit that is not physical and a bad wavelength', () => {

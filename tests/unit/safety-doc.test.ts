@@ -16,9 +16,9 @@ describe('readSafety', () => {
 	it('fills missing keys from the defaults (older documents)', () => {
 		expect(readSafety({ wavelength: '1064 nm' }).doc).toMatchObject({ wavelength: '1064 nm', power: '5 W' });
 	});
-	it('refuses a section with a wrong type and says where', () => {
+	it('resets only a field with a wrong value, keeps its text and says where', () => {
 		const r = readSafety({ ...safetyDefaults, standard: 'ansi' });
 		expect(r.problem).toMatch(/standard/);
-		expect(r.doc).toEqual(safetyDefaults);
+		expect(r.doc).toEqual({ ...safetyDefaults, unreadable: { standard: 'ansi' } });
 	});
 });

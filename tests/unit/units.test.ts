@@ -1,6 +1,9 @@
-import { describe, it, expect } from 'vitest';
+import { describe, it, expect, beforeAll } from 'vitest';
 import { expectClose } from '../helpers';
-import { axisPrefix, fastParse, formatNumber, formatPercent, formatSI, parseQuantity, parseQuantityOrThrow, unitEngineReady, type FieldSpec } from '../../src/lib/units';
+import { axisPrefix, fastParse, formatNumber, formatPercent, formatSI, loadUnitEngine, parseQuantity, parseQuantityOrThrow, unitEngineReady, type FieldSpec } from '../../src/lib/units';
+
+// This file checks the mathjs route too, so it loads mathjs (other test files do not pay for it).
+beforeAll(() => loadUnitEngine());
 
 const waist: FieldSpec = { label: 'Waist radius', kind: 'length', above_si: 0, max_si: 1 };
 const m2: FieldSpec = { label: 'M²', kind: 'dimensionless', min_si: 1, max_si: 1000 };
@@ -40,7 +43,7 @@ describe('parseQuantity', () => {
 		expectClose(ok('5×10^-4 m', waist), 5e-4, 1e-15);
 	});
 
-	it('reads other units through mathjs (loaded in tests/setup.ts)', () => {
+	it('reads other units through mathjs (loaded in beforeAll above)', () => {
 		expect(unitEngineReady()).toBe(true);
 		expectClose(ok('0.02 inch', waist), 0.02 * 0.0254, 1e-12);
 		expectClose(ok('2 mW/cm^2', { label: 'Irradiance', kind: 'irradiance' }), 20, 1e-12);

@@ -3,7 +3,7 @@
  * Caustic fit per ISO 11146-1 of measured second-moment diameters; prints per axis d0, z0, full
  * divergence, zR and M² with uncertainties, the measurement-plan check and any flagged lines.
  */
-import { readFile } from 'node:fs/promises';
+import { readText } from '../readText';
 import { CliInputError, allowOnly, optChoice, optString, parseArgs, requireQuantity } from '../args';
 import { parseQuantity } from '../../lib/units/parse';
 import { parseWidthTable } from '../../lib/io/widthTable';
@@ -14,16 +14,24 @@ export const usage =
 	'npx beamwright fit widths.csv --wavelength 1064nm [--z-unit mm] [--d-unit um] [--weighting relative|plain]\n' +
 	'  widths.csv: a header naming columns z and d, or z, dx and dy (second-moment diameters); one line per plane.';
 
+const lengthUnits = 'a length unit such as nm, um, mm, cm, m, in';
+
 /** Metres per unit for a unit name such as "mm" or "um"; the message names the option. */
 export function unitScale(option: string, unit: string): number {
 	const r = parseQuantity(`1 ${unit}`, { label: option, kind: 'length', above_si: 0 });
-	if (!r.ok) throw new CliInputError(`${option}: "${unit}" is not a length unit — accepted: nm, um, mm, cm, m, in`);
+	if (!r.ok) throw new CliInputError(`${option}: "${unit}" is not a length unit — accepted: ${lengthUnits}`);
 	return r.value_si;
 }
 
 function axisJson(r: AxisResult) {
 	const f = r.fit;
-	if (!f.physical) return { physical: false, reason: f.reason, planes: f.n, a_m2: f.a_m2, b_m: f.b_m, c: f.c };
+	if (!f.physical) {
+		const out: Record<string, unknown> = { physical: false, reason: f.reason, planes: f.n, a_m2: f.a_m2, b_m: f.b_m, c: f.c };
+		// M² below 1: the likely causes, and the hyperbola's figures for diagnosis (not a real beam).
+		if (f.likelyCauses) out.likelyCauses = f.likelyCauses;
+		if (f.figures) out.figures = { ...f.figures, uncertainty: f.figureUncertainty ?? null };
+		return out;
+	}
 	return {
 		physical: true,
 		d0_m: f.d0_m,
@@ -34,7 +42,8 @@ function axisJson(r: AxisResult) {
 		uncertainty: f.uncertainty,
 		planes: f.n,
 		weighting: f.weighting,
-		rmsRelativeResidual: f.rmsRelativeResidual
+		rmsRelativeResidual: f.rmsRelativeResidual,
+		...(f.note ? { note: f.note } : {})
 	};
 }
 
@@ -55,17 +64,16 @@ function planJson(r: AxisResult) {
 
 export async function run(argv: string[]) {
 	const args = parseArgs(argv);
-	allowOnly(args, ['wavelength', 'z-unit', 'd-unit', 'weighting']);
+	allowOnly(args, ['wavelength', 'z-unit', 'd-unit', 'weighting'], { files: { max: 1, label: 'widths file', example: 'npx beamwright fit widths.csv --wavelength 1064nm' } });
 	const file = args.positionals[0];
 	if (!file) throw new CliInputError('widths file: required — e.g. npx beamwright fit widths.csv --wavelength 1064nm');
-	if (args.positionals.length > 1) throw new CliInputError(`widths file: one file only — got ${args.positionals.length}: ${args.positionals.join(', ')}`);
 	const wavelength_m = requireQuantity(args, 'wavelength', { kind: 'length', min_si: 100e-9, max_si: 1e-3 }, '1064nm');
-	const zUnit = optString(args, 'z-unit');
-	const dUnit = optString(args, 'd-unit');
+	const zUnit = optString(args, 'z-unit', lengthUnits);
+	const dUnit = optString(args, 'd-unit', lengthUnits);
 	const weighting = optChoice<Weighting>(args, 'weighting', ['relative', 'plain'], 'relative');
 	let text: string;
 	try {
-		text = await readFile(file, 'utf8');
+		text = await readText(file);
 	} catch {
 		throw new CliInputError(`widths file: cannot read "${file}" — give the path of a CSV file with columns z and d, or z, dx and dy`);
 	}

@@ -1,4 +1,4 @@
-import { allowOnly, CliInputError, optChoice, parseArgs } from '../args';
+import { allowOnly, CliInputError, optChoice, optInteger, parseArgs } from '../args';
 import { compileSource, type FieldError } from '../../lib/document/compile';
 import { readSetupFile } from '../setupFile';
 import { searchMatches } from '../../lib/optics/solve';
@@ -9,7 +9,7 @@ export const usage = 'npx beamwright match setup.json [--rank robust|efficiency|
 
 export async function run(argv: string[]) {
 	const args = parseArgs(argv);
-	allowOnly(args, ['rank', 'top']);
+	allowOnly(args, ['rank', 'top'], { files: { max: 1, label: 'setup', example: 'npx beamwright match setup.json' } });
 	const file = args.positionals[0];
 	const doc = await readSetupFile(file, 'match');
 	if (!doc.match) throw new CliInputError(`setup: ${file} has no "match" section (target, inventory, rail)`);
@@ -19,22 +19,24 @@ export async function run(argv: string[]) {
 	const c = compileMatch(doc.match, source);
 	if (!c.ok) throw new CliInputError(`setup: ${c.errors[0]}`);
 	const rank = optChoice(args, 'rank', ['robust', 'efficiency', 'tolerance', 'length'] as const, (c.problem.rankBy ?? 'robust') as 'robust');
-	const topText = args.options.get('top');
-	const top = topText === undefined ? 10 : Number(topText);
-	if (!(Number.isInteger(top) && top >= 1 && top <= 100)) throw new CliInputError(`--top: must be a whole number from 1 to 100 — got ${String(topText)}`);
+	const top = optInteger(args, 'top', 1, 100, 10);
 	const solutions = searchMatches({ ...c.problem, rankBy: rank, keep: top });
 	return {
 		target: c.problem.target.what,
 		rankedBy: rank,
+		efficiencyMeans: 'TEM00 overlap of the embedded Gaussian with the target × aperture transmission (the same at every plane); fundamentalModePower = efficiency × 2/(1+M²x) × 2/(1+M²y), the power of the fundamental mode of a Gaussian Schell-model beam coupled in',
 		solutions: solutions.map((s, i) => ({
 			rank: i + 1,
 			efficiency: s.efficiency,
+			fundamentalModePower: s.fundamentalModePower,
+			fundamentalFraction: s.fundamentalFraction,
 			couplingX: s.couplingX,
 			couplingY: s.couplingY,
 			transmitted: s.transmitted,
 			sensitivity: s.sensitivity,
 			length_m: s.length_m,
-			lenses: s.lenses.map((l) => ({ label: l.label, f_m: l.f_m, z_m: l.z_m, lossPer1mm: l.positionLoss, lossPer1pctFocal: l.focalLoss }))
+			targetTolerance: s.targetTolerance,
+			lenses: s.lenses.map((l) => ({ label: l.label, f_m: l.f_m, z_m: l.z_m, lossPer1mm: l.positionLoss, lossPer1pctFocal: l.focalLoss, shiftFor1pct_m: l.shiftFor1pct_m }))
 		}))
 	};
 }

@@ -4,7 +4,7 @@
  * after background removal, over an iterated integration area.
  */
 import { readFile } from 'node:fs/promises';
-import { CliInputError, allowOnly, optQuantity, parseArgs, requireQuantity } from '../args';
+import { CliInputError, allowOnly, optInteger, optQuantity, parseArgs, requireQuantity } from '../args';
 import { decodeBeamImage } from '../../lib/io/beamImage';
 import { beamMoments } from '../../lib/optics/iso11146/index';
 
@@ -17,15 +17,13 @@ export const usage =
 
 export async function run(argv: string[]) {
 	const args = parseArgs(argv);
-	allowOnly(args, ['pixel', 'area', 'clip', 'frame']);
+	allowOnly(args, ['pixel', 'area', 'clip', 'frame'], { files: { max: 1, label: 'image file', example: 'npx beamwright moments image.png --pixel 5.5um' } });
 	const file = args.positionals[0];
 	if (!file) throw new CliInputError('image file: required — e.g. npx beamwright moments image.png --pixel 5.5um');
-	if (args.positionals.length > 1) throw new CliInputError(`image file: one file only — got ${args.positionals.length}: ${args.positionals.join(', ')}`);
 	const pixelPitch_m = requireQuantity(args, 'pixel', { kind: 'length', above_si: 0, max_si: 1e-3 }, '5.5um');
-	const areaFactor = optQuantity(args, 'area', { kind: 'dimensionless', min_si: 1.5, max_si: 10 });
-	const clip_sigma = optQuantity(args, 'clip', { kind: 'dimensionless', min_si: 0, max_si: 10 });
-	const frame_px = optQuantity(args, 'frame', { kind: 'dimensionless', min_si: 1, max_si: 10000 });
-	if (frame_px !== undefined && !Number.isInteger(frame_px)) throw new CliInputError(`--frame must be a whole number of pixels — got ${frame_px}`);
+	const areaFactor = optQuantity(args, 'area', { kind: 'dimensionless', min_si: 1.5, max_si: 10 }, '3');
+	const clip_sigma = optQuantity(args, 'clip', { kind: 'dimensionless', min_si: 0, max_si: 10 }, '2');
+	const frame_px = args.options.has('frame') ? optInteger(args, 'frame', 1, 10000, 0) : undefined;
 	let bytes: Uint8Array;
 	try {
 		bytes = new Uint8Array(await readFile(file));

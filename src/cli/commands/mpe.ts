@@ -21,14 +21,14 @@ export async function run(argv: string[]) {
 	const wavelength_m = requireQuantity(args, 'wavelength', wavelengthSpec, '532nm');
 	const target = optChoice(args, 'target', ['eye', 'skin'] as const, 'eye');
 	const viewing = optChoice(args, 'viewing', viewingCases, 'accidental');
-	const given = optQuantity(args, 'duration', durationSpec);
+	const given = optQuantity(args, 'duration', durationSpec, '0.25s');
 	if (given !== undefined && args.options.has('viewing')) throw new CliInputError('--viewing: sets the default duration — give it or --duration, not both');
 	const dflt = defaultExposureDuration(wavelength_m, viewing, target);
 	const duration_s = given ?? dflt.duration_s;
 	const durationBasis = given !== undefined ? 'given with --duration' : `${dflt.basis} (${dflt.source}; override with --duration)`;
-	const alpha_rad = optQuantity(args, 'source-angle', { kind: 'angle', min_si: 0, max_si: Math.PI }) ?? 0;
-	const pulseWidth_s = optQuantity(args, 'pulse-width', { kind: 'time', min_si: 1e-13, max_si: 3e4 });
-	const repetitionRate_Hz = optQuantity(args, 'repetition-rate', { kind: 'frequency', above_si: 0, max_si: 1e15 });
+	const alpha_rad = optQuantity(args, 'source-angle', { kind: 'angle', min_si: 0, max_si: Math.PI }, '1.5mrad') ?? 0;
+	const pulseWidth_s = optQuantity(args, 'pulse-width', { kind: 'time', min_si: 1e-13, max_si: 3e4 }, '10ns');
+	const repetitionRate_Hz = optQuantity(args, 'repetition-rate', { kind: 'frequency', above_si: 0, max_si: 1e15 }, '10kHz');
 	if ((pulseWidth_s === undefined) !== (repetitionRate_Hz === undefined))
 		throw new CliInputError(`--${pulseWidth_s === undefined ? 'pulse-width' : 'repetition-rate'}: required with --${pulseWidth_s === undefined ? 'repetition-rate' : 'pulse-width'} — a pulse train needs both (a single pulse: give --duration as its width)`);
 	if (pulseWidth_s !== undefined && repetitionRate_Hz !== undefined) {
@@ -42,6 +42,10 @@ export async function run(argv: string[]) {
 			standard: r.standard,
 			caution,
 			standardId: r.standardId,
+			provenance: r.provenance,
+			limitSource: r.limitSource,
+			provenanceLine: r.provenanceLine,
+			comparedWith: r.comparedWith,
 			basis: 'radiantExposure_J_m2 is the limit per pulse; irradiance_W_m2 the same limit as an average irradiance over the train',
 			target: r.target,
 			wavelength_m: r.wavelength_m,
@@ -67,6 +71,9 @@ export async function run(argv: string[]) {
 		standard: r.standard,
 		caution,
 		standardId: r.standardId,
+		provenance: r.provenance,
+		limitSource: r.limitSource,
+		provenanceLine: r.provenanceLine,
 		unitKind: r.kind,
 		mechanism: r.mechanism,
 		row: r.row,

@@ -11,6 +11,6 @@ export async function run(argv: string[]) {
 	const wavelength_m = requireQuantity(args, 'wavelength', sourceFields.wavelength, '1064nm');
 	const w1 = requireQuantity(args, 'w1', sourceFields.waist, '0.5mm');
 	const w2 = requireQuantity(args, 'w2', sourceFields.waist, '0.6mm');
-	const d = optQuantity(args, 'separation', { kind: 'length', min_si: -1e4, max_si: 1e4 }) ?? 0;
+	const d = optQuantity(args, 'separation', { kind: 'length', min_si: -1e4, max_si: 1e4 }, '10cm') ?? 0;
 	return { efficiency: waistCoupling(w1, w2, d, wavelength_m) };
 }

@@ -16,7 +16,7 @@ const beamJson = (b: BeamAt) => ({
 
 export async function run(argv: string[]) {
 	const args = parseArgs(argv);
-	allowOnly(args, []);
+	allowOnly(args, [], { files: { max: 1, label: 'setup', example: 'npx beamwright propagate setup.json' } });
 	const doc = await readSetupFile(args.positionals[0], 'propagate');
 	const compiled = compileSetup(doc);
 	if (!compiled.ok) throw new CliInputError(`setup: ${compiled.errors[0].path}: ${compiled.errors[0].message}${compiled.errors.length > 1 ? ` (and ${compiled.errors.length - 1} more)` : ''}`);

@@ -1,7 +1,7 @@
 /**
- * The demo setup loaded on first visit: bench 2 of the Larkspur Street teaching lab, an invented lab
- * with an invented 1064 nm laser ("LS-1064 rod laser", slightly astigmatic). All numbers are made up for
- * the demonstration; none describe a real product.
+ * The demo setup loaded on first visit: bench 2 of "Demo lab", an invented lab with an invented
+ * 1064 nm laser ("Demo laser A (1064 nm)", slightly astigmatic). All names and numbers are made up for
+ * the demonstration; none describe a real lab or product.
  */
 import { CURRENT_VERSION, FORMAT, type AxisSourceDoc, type ElementDoc, type SetupDoc } from './schema';
 import { defaultParams } from './elementKinds';
@@ -33,10 +33,10 @@ export function demoSetup(): SetupDoc {
 	return {
 		format: FORMAT,
 		version: CURRENT_VERSION,
-		name: 'Larkspur St. lab — bench 2: expand and refocus the LS-1064',
-		notes: 'Invented demo: the LS-1064 rod laser of an invented teaching lab, expanded 2× and refocused after a tilted concave mirror.',
+		name: 'Demo lab, bench 2 — expand and refocus Demo laser A',
+		notes: 'Invented demo: Demo laser A (1064 nm) of an invented teaching lab, expanded 2× and refocused after a tilted concave mirror.',
 		source: {
-			label: 'LS-1064 rod laser (invented)',
+			label: 'Demo laser A (1064 nm)',
 			wavelength: '1064 nm',
 			index: '1',
 			astigmatic: true,

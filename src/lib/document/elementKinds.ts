@@ -31,7 +31,7 @@ export const elementKinds: KindDef[] = [
 		kind: 'thinLens',
 		name: 'Lens (thin)',
 		blurb: 'spherical lens, focal length f (negative: diverging)',
-		params: [{ key: 'f', type: 'quantity', spec: len('Focal length'), default: '100 mm', help: 'negative for a diverging lens' }],
+		params: [{ key: 'f', type: 'quantity', spec: len('Focal length'), default: '100 mm', help: 'negative for a diverging lens; in a medium, f as measured in that medium' }],
 		build: (v) => ({ kind: 'thinLens', f_m: v.f as number })
 	},
 	{
@@ -51,7 +51,7 @@ export const elementKinds: KindDef[] = [
 		name: 'Curved mirror',
 		blurb: 'spherical mirror at an angle of incidence (astigmatic when tilted)',
 		params: [
-			{ key: 'r', type: 'radius', label: 'Radius of curvature', default: '200 mm', help: '+ for concave (focusing), f = R/2' },
+			{ key: 'r', type: 'radius', label: 'Radius of curvature', default: '200 mm', help: '+ for concave (focusing), f = R/2 in any medium' },
 			{ key: 'angle', type: 'quantity', spec: ang('Angle of incidence'), default: '0 deg' },
 			{ key: 'plane', type: 'choice', label: 'Plane of incidence', choices: axisChoice, default: 'x' }
 		],
@@ -72,7 +72,7 @@ export const elementKinds: KindDef[] = [
 		name: 'Cylindrical lens',
 		blurb: 'focuses one axis only',
 		params: [
-			{ key: 'f', type: 'quantity', spec: len('Focal length'), default: '150 mm' },
+			{ key: 'f', type: 'quantity', spec: len('Focal length'), default: '150 mm', help: 'in a medium, f as measured in that medium' },
 			{ key: 'axis', type: 'choice', label: 'Focusing axis', choices: axisChoice, default: 'x' }
 		],
 		build: (v) => ({ kind: 'cylLens', f_m: v.f as number, axis: v.axis as Axis })
@@ -104,7 +104,7 @@ export const elementKinds: KindDef[] = [
 		name: 'Thermal lens',
 		blurb: 'heat-induced lens of a gain medium, per axis',
 		params: [
-			{ key: 'fx', type: 'quantity', spec: len('Focal length x'), default: '2 m' },
+			{ key: 'fx', type: 'quantity', spec: len('Focal length x'), default: '2 m', help: 'in a medium, f as measured in that medium' },
 			{ key: 'fy', type: 'quantity', spec: len('Focal length y'), default: '2 m' }
 		],
 		build: (v) => ({ kind: 'thermalLens', fx_m: v.fx as number, fy_m: v.fy as number })

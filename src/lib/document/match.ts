@@ -22,6 +22,9 @@ import type { MatchProblem, RankBy } from '../optics/solve/search';
 import type { InputBeam, Interval, StockLens, TargetMode } from '../optics/solve/types';
 import { compileSetup, compileSource, type FieldError } from './compile';
 import type { SetupDoc } from './schema';
+import { repairSection } from './repair';
+import { LabSchema, defaultLab, type CavityGeometry } from './cavityLab';
+import { roundTripMatrices } from '../optics/cavity';
 
 /** Element ids of lenses that the Match workspace put on the bench start with this. */
 export const MATCH_ID_PREFIX = 'match-';
@@ -83,7 +86,9 @@ export const MatchSectionSchema = v.object({
 	minSpacing: v.optional(text, '10 mm'),
 	lensCounts: v.optional(v.array(v.picklist([1, 2, 3])), [1, 2]),
 	rankBy: v.optional(v.picklist(['robust', 'efficiency', 'tolerance', 'length']), 'robust'),
-	expander: v.optional(v.object({ magMin: text, magMax: text, lens1At: text, waistAfter: text }), { magMin: '2', magMax: '5', lens1At: '100 mm', waistAfter: '' })
+	expander: v.optional(v.object({ magMin: text, magMax: text, lens1At: text, waistAfter: text }), { magMin: '2', magMax: '5', lens1At: '100 mm', waistAfter: '' }),
+	/** Cavity lab (Scan workspace): mirror reflectivities, steering mirrors, perturbation, measured peaks. Optional; defaults fill older documents. */
+	lab: v.optional(LabSchema, defaultLab)
 });
 export type MatchSection = v.InferOutput<typeof MatchSectionSchema>;
 export type InventoryRow = MatchSection['inventory'][number];
@@ -108,7 +113,8 @@ export function defaultMatchSection(): MatchSection {
 		minSpacing: '25 mm',
 		lensCounts: [1, 2],
 		rankBy: 'robust',
-		expander: { magMin: '2', magMax: '5', lens1At: '100 mm', waistAfter: '' }
+		expander: { magMin: '2', magMax: '5', lens1At: '100 mm', waistAfter: '' },
+		lab: defaultLab()
 	};
 }
 
@@ -127,16 +133,18 @@ export function emptyMatchSection(): MatchSection {
 		minSpacing: '0 mm',
 		lensCounts: [1, 2],
 		rankBy: 'robust',
-		expander: { magMin: '', magMax: '', lens1At: '', waistAfter: '' }
+		expander: { magMin: '', magMax: '', lens1At: '', waistAfter: '' },
+		lab: defaultLab()
 	};
 }
 
-/** Read the stored section (filling defaults for optional parts). A section that does not fit says why. */
+/**
+ * Read the stored section (filling defaults for optional parts), repairing field by field: a field
+ * that cannot be read is reset, its old text kept under `unreadable`, and `problem` names it.
+ */
 export function readMatchSection(raw: unknown): { section: MatchSection; problem: string | null } {
-	if (raw === undefined || raw === null) return { section: defaultMatchSection(), problem: null };
-	const r = v.safeParse(MatchSectionSchema, raw);
-	if (r.success) return { section: r.output, problem: null };
-	return { section: defaultMatchSection(), problem: `match.${v.getDotPath(r.issues[0]) ?? ''}: ${r.issues[0].message}` };
+	const r = repairSection(MatchSectionSchema as never, raw, defaultMatchSection(), 'match settings');
+	return { section: r.section as MatchSection, problem: r.problem };
 }
 
 /** Millimetre text with up to 6 significant digits: 0.1234 → "123.4 mm". */
@@ -224,6 +232,8 @@ export interface CompiledMatch {
 	inputBeam: InputBeam | null;
 	/** The rail range, when valid. */
 	rail: Interval | null;
+	/** The target cavity's round trip and mode at the target plane, when it is a stable cavity (for the cavity lab). */
+	roundTrip?: CavityGeometry | null;
 }
 
 function radiusText(t: string, label: string, path: string, err: (p: string, m: string) => void): number {
@@ -251,12 +261,11 @@ export function compileMatchSection(raw: unknown, source: SourceSpec, doc?: Setu
 		if (!(path in out.fieldErrors)) out.fieldErrors[path] = message;
 		out.errors.push(message);
 	};
-	const parsed = v.safeParse(MatchSectionSchema, raw);
-	if (!parsed.success) {
-		err('', `match.${v.getDotPath(parsed.issues[0]) ?? ''}: ${parsed.issues[0].message}`);
-		return out;
-	}
-	const m = parsed.output;
+	// Field by field: a field that cannot be read is named (at its path) and blocks the search until
+	// the user edits it; the rest of the section is read as stored.
+	const repaired = repairSection(MatchSectionSchema as never, raw, defaultMatchSection(), 'match settings');
+	for (const r of repaired.resets) err(r.path.replace(/^\(whole section\)$/, ''), `match.${r.path}: the stored value ${r.text.length > 40 ? r.text.slice(0, 40) + '…' : r.text} could not be read — it is reset to the default at your next change`);
+	const m = repaired.section as MatchSection;
 	const n0 = () => out.errors.length;
 	const q = (path: string, t: string, spec: FieldSpec) => {
 		const r = parseQuantity(t, spec);
@@ -318,8 +327,19 @@ export function compileMatchSection(raw: unknown, source: SourceSpec, doc?: Setu
 					// keep the closed form 2·g1·g2 − 1
 				}
 				out.cavity = { ...c, g1g2: c.g1 * c.g2, halfTrace, lens: null };
-				if (!c.stable) err('target.cavity', `The cavity has no stable mode to match: g1·g2 = ${(c.g1 * c.g2).toPrecision(4)} (must lie between 0 and 1), (A+D)/2 = ${halfTrace.toPrecision(4)} (must lie between −1 and 1). Change R1, R2 or the length.`);
-				else if (Number.isFinite(at)) target = cavityTarget(r1, r2, len, at, lam);
+				const lim = c.limit;
+				if (c.status === 'boundary' && lim && lim.finite && lim.w0_m !== null && lim.waistFromMirror1_m !== null) {
+					// Confocal: match the limit of the symmetric cavity (reported as such on the page).
+					if (Number.isFinite(at)) {
+						const qq = { re: -lim.waistFromMirror1_m, im: (Math.PI * lim.w0_m * lim.w0_m) / lam };
+						target = { z_m: at, x: qq, y: { ...qq }, what: 'cavity' };
+					}
+				} else if (c.status === 'boundary') err('target.cavity', `The cavity has no confined mode to match: it is ${c.reason}. Change R1, R2 or the length.`);
+				else if (!c.stable) err('target.cavity', `The cavity has no stable mode to match: g1·g2 = ${(c.g1 * c.g2).toPrecision(4)} (must lie between 0 and 1), (A+D)/2 = ${halfTrace.toPrecision(4)} (must lie between −1 and 1). Change R1, R2 or the length.`);
+				else if (Number.isFinite(at)) {
+					target = cavityTarget(r1, r2, len, at, lam);
+					out.roundTrip = { kind: 'linear', path_m: 2 * len, reflections: 2, matrices: roundTripMatrices(linearRoundTrip(r1, r2, [{ kind: 'space', length_m: len }])), mode: { x: { ...target.x }, y: { ...target.y } }, at_m: at };
+				}
 			} else {
 				const oneWay: RoundTripPart[] = [{ kind: 'space', length_m: lensAt }, { kind: 'element', spec: { kind: 'thinLens', f_m: lensF } }, { kind: 'space', length_m: len - lensAt }];
 				const parts = linearRoundTrip(r1, r2, oneWay);
@@ -343,7 +363,13 @@ export function compileMatchSection(raw: unknown, source: SourceSpec, doc?: Setu
 				out.cavity = {
 					...c,
 					stable,
-					reason: stable ? null : 'unstable: with the lens, (A+D)/2 of the round trip must lie between −1 and 1',
+					status: stable ? 'stable' : ax.boundary ? 'boundary' : 'unstable',
+					limit: null,
+					reason: stable
+						? null
+						: ax.boundary
+							? 'on the stability boundary: with the lens, (A+D)/2 of the round trip is ±1, where the round trip fixes no Gaussian mode'
+							: 'unstable: with the lens, (A+D)/2 of the round trip must lie between −1 and 1',
 					g1g2,
 					halfTrace,
 					w0_m: w0,
@@ -354,7 +380,10 @@ export function compileMatchSection(raw: unknown, source: SourceSpec, doc?: Setu
 					lens: { f_m: lensF, fromMirror1_m: lensAt }
 				};
 				if (!stable) err('target.cavity', `The cavity with its lens has no stable mode to match: (A+D)/2 = ${halfTrace.toPrecision(4).replace('-', '−')} (must lie between −1 and 1). Change R1, R2, the length or the lens.`);
-				else if (Number.isFinite(at)) target = roundTripTarget(mode, at);
+				else if (Number.isFinite(at)) {
+					target = roundTripTarget(mode, at);
+					out.roundTrip = { kind: 'linear', path_m: 2 * len, reflections: 2, matrices: mode.matrices, mode: { x: { ...target.x }, y: { ...target.y } }, at_m: at };
+				}
 			}
 		}
 	} else if (t.kind === 'ring') {
@@ -362,9 +391,13 @@ export function compileMatchSection(raw: unknown, source: SourceSpec, doc?: Setu
 		if (r) {
 			out.ring = r.readout;
 			if (!r.readout.stable) {
-				const bad = (['x', 'y'] as const).filter((a) => !r.readout[a].stable).map((a) => `${a === 'x' ? 'x tangential' : 'y sagittal'} (A+D)/2 = ${r.readout[a].halfTrace.toPrecision(4).replace('-', '−')}`);
+				const bad = (['x', 'y'] as const).filter((a) => !r.readout[a].stable).map((a) => `${a === 'x' ? 'x tangential' : 'y sagittal'} (A+D)/2 = ${r.readout[a].halfTrace.toPrecision(4).replace('-', '−')}${r.mode[a].boundary ? ' (on the stability boundary, where the round trip fixes no mode)' : ''}`);
 				err('target.ring', `The ${t.ring.type === 'ring' ? 'ring' : 'folded'} cavity has no stable mode to match: ${bad.join(', ')} (must lie between −1 and 1). Change the mirror radii, angles or arm lengths.`);
-			} else if (n0() === before && Number.isFinite(at)) target = roundTripTarget(r.mode, at);
+			} else if (n0() === before && Number.isFinite(at)) {
+				target = roundTripTarget(r.mode, at);
+				const ring = t.ring.type === 'ring';
+				out.roundTrip = { kind: ring ? 'ring' : 'linear', path_m: r.readout.roundTrip_m, reflections: ring ? t.ring.mirrors.length : 2 * (t.ring.mirrors.length - 1), matrices: r.mode.matrices, mode: { x: { ...target.x }, y: { ...target.y } }, at_m: at };
+			}
 		}
 	} else {
 		let mfd = NaN;

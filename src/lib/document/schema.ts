@@ -10,6 +10,10 @@ import * as v from 'valibot';
 import { elementKinds } from './elementKinds';
 
 export const FORMAT = 'beamwright-setup';
+/** Most elements a setup may hold (a lab bench has tens); more is refused with this limit. */
+export const MAX_ELEMENTS = 1000;
+/** Largest setup text read (characters): files, autosave, share links. */
+export const MAX_SETUP_CHARS = 20_000_000;
 export const CURRENT_VERSION = 1;
 
 const text = v.string();
@@ -77,6 +81,15 @@ export function validateSetup(value: unknown): { ok: true; doc: SetupDoc } | { o
 	if (obj.format !== FORMAT) return { ok: false, reason: `not a Beamwright setup (field "format" must be "${FORMAT}")` };
 	if (typeof obj.version !== 'number') return { ok: false, reason: 'field "version" is missing' };
 	if (obj.version > CURRENT_VERSION) return { ok: false, reason: `setup version ${obj.version} is newer than this Beamwright understands (${CURRENT_VERSION})` };
+	if (Array.isArray(obj.elements) && obj.elements.length > MAX_ELEMENTS)
+		return { ok: false, reason: `elements: ${obj.elements.length} elements — a setup holds at most ${MAX_ELEMENTS}` };
+	// A list where a table of named values belongs would be read as an empty table: refuse it.
+	for (const key of ['match', 'safety', 'measure'] as const) if (Array.isArray(obj[key])) return { ok: false, reason: `${key}: must be an object — got a list` };
+	if (Array.isArray(obj.elements))
+		for (let i = 0; i < obj.elements.length; i++) {
+			const p = (obj.elements[i] as { params?: unknown } | null)?.params;
+			if (Array.isArray(p)) return { ok: false, reason: `elements.${i}.params: must be an object — got a list` };
+		}
 	const r = v.safeParse(SetupSchema, obj);
 	if (!r.success) {
 		const issue = r.issues[0];
@@ -93,9 +106,12 @@ export function validateSetup(value: unknown): { ok: true; doc: SetupDoc } | { o
 
 /** Parse JSON text as a setup document; never throws. */
 export function parseSetupJson(json: string): { ok: true; doc: SetupDoc } | { ok: false; reason: string } {
+	if (typeof json !== 'string') return { ok: false, reason: 'not text' };
+	if (json.length > MAX_SETUP_CHARS)
+		return { ok: false, reason: `the setup is ${(json.length / 1e6).toFixed(1)} million characters — at most ${MAX_SETUP_CHARS / 1e6} million are read` };
 	let value: unknown;
 	try {
-		value = JSON.parse(json);
+		value = JSON.parse(json.replace(/^\uFEFF/, ''));
 	} catch (e) {
 		return { ok: false, reason: `not valid JSON (${(e as Error).message})` };
 	}

@@ -2,32 +2,49 @@
  * The setup store: the one live setup document of the app, with autosave, undo/redo and file
  * import/export. Results that depend on it are `$derived`, so every workspace reads the same beam.
  *
- * Storage is passed in (localStorage in the browser, a Map-backed fake in tests).
+ * Storage is passed in (localStorage in the browser, a Map-backed fake in tests). What keeps work from
+ * being lost (other tabs, full storage, unreadable autosaves, bounded undo) is in `persist.ts`.
  */
 import { compileSetup, type FieldError } from './compile';
 import { demoSetup } from './demo';
 import { parseSetupJson, type SetupDoc } from './schema';
 import { propagate, type Propagation } from '../optics/train';
 import { loadUnitEngine, onUnitEngineReady, unitEngineReady } from '../units/parse';
+import { BoundedHistory, Persistence, type KeptCopy, type KeyValueStorage } from './persist';
 
-export interface KeyValueStorage {
-	getItem(key: string): string | null;
-	setItem(key: string, value: string): void;
+export { STORAGE_KEY, type KeyValueStorage } from './persist';
+
+/** Another tab saved the setup after this tab last read it. */
+export interface TabConflict {
+	otherSavedAt: number | null;
+	/** This tab had changes of its own that are not saved. */
+	mineUnsaved: boolean;
 }
-
-export const STORAGE_KEY = 'beamwright.setup.v1';
 
 export type Outcome = { ok: true; result: Propagation } | { ok: false; errors: FieldError[]; engineError?: string };
 
 export class SetupStore {
 	doc = $state<SetupDoc>(demoSetup());
-	#undo: string[] = [];
-	#redo: string[] = [];
+	#undo = new BoundedHistory();
+	#redo = new BoundedHistory();
 	#lastCoalesce: string | null = null;
 	#saveTimer: ReturnType<typeof setTimeout> | null = null;
-	#storage: KeyValueStorage | null;
+	#persist: Persistence;
+	#dirty = false;
 	/** Set when the stored document could not be read on start-up (kept aside, never overwritten silently). */
 	restoreProblem = $state<string | null>(null);
+	/** Why the last autosave failed (storage full…); null while autosave works. */
+	saveError = $state<string | null>(null);
+	/** Another tab saved newer work; autosave waits until the user chooses. */
+	conflict = $state<TabConflict | null>(null);
+	/** Another tab of the app is open in this browser. */
+	otherTabOpen = $state(false);
+	/** This tab neither saves nor changes the setup (chosen after a conflict). */
+	readOnly = $state(false);
+	/** This tab saves into a copy of its own, leaving the shared autosave to the other tab. */
+	savingToCopy = $state(false);
+	/** Kept copies: unreadable autosaves and copies a tab kept; listed on every page until dealt with. */
+	kept = $state<KeptCopy[]>([]);
 	canUndo = $state(false);
 	canRedo = $state(false);
 	savedAt = $state<number | null>(null);
@@ -63,17 +80,77 @@ export class SetupStore {
 	});
 
 	constructor(storage: KeyValueStorage | null) {
-		this.#storage = storage;
+		this.#persist = new Persistence(storage);
 		if (!unitEngineReady()) onUnitEngineReady(() => this.unitsVersion++);
-		const saved = storage?.getItem(STORAGE_KEY);
-		if (saved) {
-			const r = parseSetupJson(saved);
+		const loaded = this.#persist.load((text) => {
+			const r = parseSetupJson(text);
+			return r.ok ? null : r.reason;
+		});
+		if (loaded.text !== null) {
+			const r = parseSetupJson(loaded.text);
 			if (r.ok) this.doc = r.doc;
-			else {
-				this.restoreProblem = `The autosaved setup could not be read (${r.reason}); the demo setup is shown and the old text is kept under "${STORAGE_KEY}.unreadable".`;
-				storage!.setItem(STORAGE_KEY + '.unreadable', saved);
-			}
 		}
+		this.restoreProblem = loaded.problem;
+		this.kept = this.#persist.listKept();
+	}
+
+	/** Start watching the other tabs of this browser (the app calls this once). */
+	watchOtherTabs(): () => void {
+		return this.#persist.watch(
+			() => {
+				if (this.readOnly || this.savingToCopy) return;
+				this.conflict = { otherSavedAt: this.#persist.readShared().savedAt, mineUnsaved: this.#dirty };
+			},
+			() => (this.otherTabOpen = true)
+		);
+	}
+
+	/** Conflict: take the other tab's saved setup here (one undo step brings this tab's back). */
+	takeOtherVersion(): { ok: true } | { ok: false; reason: string } {
+		const other = this.#persist.readShared();
+		const r = other.text === null ? ({ ok: false, reason: 'the other tab saved nothing readable' } as const) : parseSetupJson(other.text);
+		if (!r.ok) return r;
+		this.#persist.adoptShared();
+		this.conflict = null;
+		this.readOnly = false;
+		this.replace(r.doc);
+		this.#dirty = false;
+		return { ok: true };
+	}
+
+	/** Conflict: keep working here, saving into a copy of our own (listed as a kept copy next time). */
+	keepMineAsCopy(): void {
+		this.#persist.saveToOwnCopy();
+		this.savingToCopy = true;
+		this.conflict = null;
+		this.readOnly = false;
+		this.#dirty = true;
+		this.flush();
+	}
+
+	/** Conflict: stay in this tab without saving or changing anything. */
+	stayReadOnly(): void {
+		this.readOnly = true;
+		this.conflict = null;
+	}
+
+	/** Open a kept copy as the setup (one undo step); refused with the reason when it cannot be read. */
+	openKept(copy: KeptCopy): { ok: true } | { ok: false; reason: string } {
+		const r = this.importJson(copy.text);
+		if (r.ok) this.dropKept(copy);
+		return r;
+	}
+
+	/** Forget a kept copy (after it was downloaded). */
+	dropKept(copy: KeptCopy): void {
+		this.#persist.dropKept(copy.key);
+		this.kept = this.#persist.listKept();
+		if (copy.key === null) this.flush();
+	}
+
+	/** Characters held by the undo and redo history (bounded, see persist.ts). */
+	get historyChars(): number {
+		return this.#undo.chars + this.#redo.chars;
 	}
 
 	/**
@@ -81,10 +158,10 @@ export class SetupStore {
 	 * (a drag, or typing in one field).
 	 */
 	update(mutate: (doc: SetupDoc) => void, coalesce?: string): void {
+		if (this.readOnly) return;
 		if (!coalesce || coalesce !== this.#lastCoalesce) {
 			this.#undo.push(JSON.stringify($state.snapshot(this.doc)));
-			if (this.#undo.length > 200) this.#undo.shift();
-			this.#redo = [];
+			this.#redo.clear();
 		}
 		this.#lastCoalesce = coalesce ?? null;
 		mutate(this.doc);
@@ -93,14 +170,16 @@ export class SetupStore {
 
 	/** Replace the whole document (import, demo, new); one undo step. */
 	replace(doc: SetupDoc): void {
+		if (this.readOnly) return;
 		this.#undo.push(JSON.stringify($state.snapshot(this.doc)));
-		this.#redo = [];
+		this.#redo.clear();
 		this.#lastCoalesce = null;
 		this.doc = doc;
 		this.#changed();
 	}
 
 	undo(): void {
+		if (this.readOnly) return;
 		const prev = this.#undo.pop();
 		if (!prev) return;
 		this.#redo.push(JSON.stringify($state.snapshot(this.doc)));
@@ -110,6 +189,7 @@ export class SetupStore {
 	}
 
 	redo(): void {
+		if (this.readOnly) return;
 		const next = this.#redo.pop();
 		if (!next) return;
 		this.#undo.push(JSON.stringify($state.snapshot(this.doc)));
@@ -130,20 +210,30 @@ export class SetupStore {
 		return JSON.stringify($state.snapshot(this.doc), null, 2) + '\n';
 	}
 
-	/** Write now (also called on page hide so a closing tab loses nothing). */
+	/**
+	 * Write now (also called on page hide so a closing tab loses nothing). Writes only when something
+	 * changed; never over another tab's newer save (that becomes a `conflict`); a failed write is shown
+	 * (`saveError`) and the work stays in memory.
+	 */
 	flush(): void {
 		if (this.#saveTimer) clearTimeout(this.#saveTimer);
 		this.#saveTimer = null;
-		if (!this.#storage) return;
-		try {
-			this.#storage.setItem(STORAGE_KEY, JSON.stringify($state.snapshot(this.doc)));
-			this.savedAt = Date.now();
-		} catch {
-			// Storage full or blocked: keep working; the export button still saves a file.
+		if (!this.#persist.available || !this.#dirty || this.readOnly || this.conflict) return;
+		const r = this.#persist.save(JSON.stringify($state.snapshot(this.doc)));
+		if (r.ok) {
+			this.#dirty = false;
+			this.savedAt = r.savedAt;
+			this.saveError = null;
+		} else if (r.conflict) {
+			this.conflict = { otherSavedAt: r.otherSavedAt, mineUnsaved: true };
+		} else {
+			this.savedAt = null;
+			this.saveError = r.message;
 		}
 	}
 
 	#changed(): void {
+		this.#dirty = true;
 		this.canUndo = this.#undo.length > 0;
 		this.canRedo = this.#redo.length > 0;
 		if (this.#saveTimer) clearTimeout(this.#saveTimer);
@@ -182,6 +272,7 @@ export function getSetupStore(): SetupStore {
 			document.addEventListener('keydown', load, { once: true });
 			setTimeout(load, 1500);
 			window.addEventListener('pagehide', () => shared?.flush());
+			shared.watchOtherTabs();
 			document.addEventListener('visibilitychange', () => {
 				if (document.visibilityState === 'hidden') shared?.flush();
 			});

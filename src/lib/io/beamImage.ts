@@ -5,6 +5,33 @@
  */
 import { decode } from 'fast-png';
 import type { GreyImage } from '../optics/iso11146/image';
+import { numberCell, readCsv } from './csv';
+
+/** Largest image side we decode, pixels. */
+export const MAX_IMAGE_SIDE = 16384;
+/** Largest image we decode: 8192 × 8192 pixels (64 MP). Larger images are refused before decoding. */
+export const MAX_IMAGE_PIXELS = 8192 * 8192;
+
+/**
+ * Width and height a PNG declares in its IHDR chunk (bytes 16–23), read without decoding anything;
+ * null when the bytes are not a PNG or are too short.
+ */
+export function pngDeclaredSize(bytes: Uint8Array): { width: number; height: number } | null {
+	const sig = [0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a];
+	if (bytes.length < 24 || !sig.every((b, i) => bytes[i] === b)) return null;
+	if (String.fromCharCode(bytes[12], bytes[13], bytes[14], bytes[15]) !== 'IHDR') return null;
+	const u32 = (o: number) => ((bytes[o] << 24) >>> 0) + (bytes[o + 1] << 16) + (bytes[o + 2] << 8) + bytes[o + 3];
+	return { width: u32(16), height: u32(20) };
+}
+
+/** Throws a RangeError when an image of this size is above the stated limits. */
+export function checkImageSize(width: number, height: number): void {
+	if (width > MAX_IMAGE_SIDE || height > MAX_IMAGE_SIDE || width * height > MAX_IMAGE_PIXELS) {
+		throw new RangeError(
+			`image must be at most ${MAX_IMAGE_SIDE} pixels a side and ${MAX_IMAGE_PIXELS / 2 ** 20} MP (8192 × 8192) — this one declares ${width} × ${height}; crop it around the beam or bin it`
+		);
+	}
+}
 
 /**
  * Decode a greyscale PNG. Accepts 8- and 16-bit greyscale, with or without an alpha channel (the
@@ -12,9 +39,12 @@ import type { GreyImage } from '../optics/iso11146/image';
  * Example: a 640 × 480 16-bit greyscale PNG → { width: 640, height: 480, data: Uint16Array(307200), maxValue: 65535 }.
  */
 export function decodeBeamPng(bytes: Uint8Array | ArrayBuffer): GreyImage {
+	const u8 = bytes instanceof ArrayBuffer ? new Uint8Array(bytes) : bytes;
+	const declared = pngDeclaredSize(u8);
+	if (declared) checkImageSize(declared.width, declared.height);
 	let png;
 	try {
-		png = decode(bytes instanceof ArrayBuffer ? new Uint8Array(bytes) : bytes);
+		png = decode(u8);
 	} catch (e) {
 		throw new RangeError(`image must be a readable PNG file — ${(e as Error).message}`);
 	}
@@ -42,26 +72,27 @@ export function decodeBeamPng(bytes: Uint8Array | ArrayBuffer): GreyImage {
  * Example: "0,1,0\n1,5,1\n0,1,0" → 3 × 3 image with the value 5 at (1, 1) (but beamMoments needs ≥ 8 × 8).
  */
 export function parseMatrixCsv(text: string): GreyImage {
-	const lines = text.replace(/^\uFEFF/, '').split(/\r\n|\r|\n/);
-	const values: number[] = [];
+	const read = readCsv(text, { what: 'matrix', maxRecords: MAX_IMAGE_SIDE });
+	if (!read.ok) throw new RangeError(read.message);
 	let width = -1;
 	let height = 0;
-	const num = /^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/;
-	for (let i = 0; i < lines.length; i++) {
-		const t = lines[i].trim();
-		if (t === '' || t.startsWith('#')) continue;
-		const cells = t.includes(',') ? t.split(',') : t.includes(';') ? t.split(';') : t.includes('\t') ? t.split('\t') : t.split(/\s+/);
-		if (width < 0) width = cells.length;
-		else if (cells.length !== width) throw new RangeError(`matrix line ${i + 1} must have ${width} values like the first row — got ${cells.length}`);
+	let values = new Float64Array(0);
+	for (const { line, cells } of read.records) {
+		if (width < 0) {
+			width = cells.length;
+			checkImageSize(width, Math.min(read.records.length, MAX_IMAGE_SIDE));
+			values = new Float64Array(width * read.records.length);
+		} else if (cells.length !== width) throw new RangeError(`matrix line ${line} must have ${width} values like the first row — got ${cells.length}`);
 		for (let k = 0; k < cells.length; k++) {
 			const c = cells[k].trim();
-			if (!num.test(c)) throw new RangeError(`matrix line ${i + 1}, column ${k + 1}: "${c}" is not a number`);
-			values.push(Number(c));
+			const v = numberCell(c, read.decimalComma);
+			if (v === null || !Number.isFinite(v)) throw new RangeError(`matrix line ${line}, column ${k + 1}: "${c}" is not a number`);
+			values[height * width + k] = v;
 		}
 		height++;
 	}
 	if (height === 0) throw new RangeError('matrix must have at least one row of numbers — got none');
-	return { width, height, data: Float64Array.from(values) };
+	return { width, height, data: values };
 }
 
 /** PNG by its signature, otherwise CSV text. */

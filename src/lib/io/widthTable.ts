@@ -4,7 +4,8 @@
  * Layout: a header naming the columns `z` and `d` (one diameter), or `z`, `dx` and `dy`; names are
  * case-insensitive and may carry a unit in brackets, e.g. `z (mm)`, `dx [um]`. Other columns are
  * ignored and reported. Separators: comma, semicolon, tab or spaces; with semicolon, tab or space
- * separators a decimal comma is accepted. Blank lines and lines starting with `#` are skipped.
+ * separators a decimal comma is accepted (the app's one CSV reader, `csv.ts`, decides this the same way
+ * for every CSV). Blank lines and lines starting with `#` are skipped. At most `MAX_WIDTH_ROWS` lines.
  * Without a header, two numbers per line mean z, d and three mean z, dx, dy.
  *
  * Every data line is either a row or a flag naming its line number and the problem (not a number,
@@ -54,18 +55,15 @@ export interface WidthTableOptions {
 	columns?: WidthColumns;
 }
 
-const numberRe = /^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/;
+import { numberCell, readCsv, unescapeCell } from './csv';
+
+/** Most lines a width table may have; a longer one is refused before it is read. */
+export const MAX_WIDTH_ROWS = 100_000;
+
 const headerRe = /^(z|d|dx|dy)\s*(?:[([]\s*([^)\]]*?)\s*[)\]])?$/i;
 
-function splitter(line: string): (s: string) => string[] {
-	if (line.includes('\t')) return (s) => s.split('\t');
-	if (line.includes(';')) return (s) => s.split(';');
-	if (line.includes(',')) return (s) => s.split(',');
-	return (s) => s.trim().split(/\s+/);
-}
-
 function cleanCell(c: string): string {
-	return c.trim().replace(/^"(.*)"$/, '$1').trim();
+	return unescapeCell(c).trim().replace(/^"(.*)"$/, '$1').trim();
 }
 
 function checkScale(v: number | undefined, name: string): void {
@@ -82,30 +80,25 @@ function checkScale(v: number | undefined, name: string): void {
 export function parseWidthTable(text: string, options: WidthTableOptions = {}): WidthTable {
 	checkScale(options.zUnit_m, 'z unit');
 	checkScale(options.dUnit_m, 'diameter unit');
+	const read = readCsv(text, { what: 'width table', maxRecords: MAX_WIDTH_ROWS });
+	if (!read.ok) throw new RangeError(read.message);
+	const { records, decimalComma } = read;
 	const lines = text.replace(/^\uFEFF/, '').split(/\r\n|\r|\n/);
 	const notes: string[] = [];
-	let first = -1;
-	for (let i = 0; i < lines.length; i++) {
-		const t = lines[i].trim();
-		if (t !== '' && !t.startsWith('#')) {
-			first = i;
-			break;
-		}
-	}
-	if (first < 0) throw new RangeError('width table must have a header (z, d or z, dx, dy) and at least one data line — got no data');
-
-	const split = splitter(lines[first]);
-	const headCells = split(lines[first]).map(cleanCell);
-	const headerLike = headCells.some((c) => !numberRe.test(c.replace(',', '.')));
+	if (records.length === 0) throw new RangeError('width table must have a header (z, d or z, dx, dy) and at least one data line — got no data');
+	const first = records[0].line - 1;
+	const isNumber = (c: string) => numberCell(c, decimalComma) !== null;
+	const headCells = records[0].cells.map(cleanCell);
+	const headerLike = headCells.some((c) => !isNumber(c));
 	let columns: WidthColumns;
 	let zCol = 0;
 	let dCols: number[];
 	let zUnit_m = options.zUnit_m ?? 1e-3;
 	let dUnit_m = options.dUnit_m ?? 1e-6;
-	let start = first;
+	let start = 0;
 
 	if (headerLike) {
-		start = first + 1;
+		start = 1;
 		const found = new Map<string, { col: number; unit?: string }>();
 		headCells.forEach((c, col) => {
 			const m = headerRe.exec(c);
@@ -146,26 +139,25 @@ export function parseWidthTable(text: string, options: WidthTableOptions = {}): 
 	}
 
 	const names = columns === 'd' ? ['d'] : ['dx', 'dy'];
-	const decimalComma = !lines[first].includes(',') || lines[first].includes(';') || lines[first].includes('\t');
 	const rows: WidthRow[] = [];
 	const flags: RowFlag[] = [];
 	const seenZ = new Map<number, number>();
-	for (let i = start; i < lines.length; i++) {
-		const t = lines[i].trim();
-		if (t === '' || t.startsWith('#')) continue;
-		const line = i + 1;
-		const cells = split(lines[i]).map(cleanCell);
+	const need = Math.max(zCol, ...dCols) + 1;
+	for (let r = start; r < records.length; r++) {
+		const line = records[r].line;
+		const t = (lines[line - 1] ?? '').trim();
+		const cells = records[r].cells.map(cleanCell);
 		const flag = (problem: string) => flags.push({ line, text: t, problem });
-		const need = Math.max(zCol, ...dCols) + 1;
 		if (cells.length < need) {
 			flag(`expected ${columns === 'd' ? 'z and d' : 'z, dx and dy'}, found ${cells.length} value${cells.length === 1 ? '' : 's'}`);
 			continue;
 		}
 		const read = (col: number, name: string): number | string => {
-			const raw = decimalComma ? cells[col].replace(',', '.') : cells[col];
-			if (raw === '') return `${name} is empty`;
-			if (!numberRe.test(raw)) return `${name} "${cells[col]}" is not a number`;
-			return Number(raw);
+			if (cells[col] === '') return `${name} is empty`;
+			const v = numberCell(cells[col], decimalComma);
+			if (v === null) return `${name} "${cells[col]}" is not a number${!decimalComma && cells[col].includes(',') ? ' (a decimal comma needs semicolon, tab or blank separators)' : ''}`;
+			if (!Number.isFinite(v)) return `${name} "${cells[col]}" is out of range`;
+			return v;
 		};
 		const z = read(zCol, 'z');
 		const ds = dCols.map((c, k) => read(c, names[k]));

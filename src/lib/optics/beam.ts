@@ -93,7 +93,7 @@ export function beamFromQ(q: QHat, props: AxisBeamProps, index = 1): BeamAt {
 }
 
 /**
- * Beam radius at distance z from the waist: w(z) = w0·sqrt(1 + (z/zR)²) (Kogelnik & Li 1966, eq. 20).
+ * Beam radius at distance z from the waist: w(z) = w0·sqrt(1 + (z/zR)²) (Kogelnik & Li 1966, eq. 20, number from memory).
  */
 export function radiusAt_m(w0_m: number, z_m: number, zR_m: number): number {
 	const u = z_m / zR_m;

@@ -16,8 +16,12 @@ import { elementMatrices, freeSpaceMatrix, identity, mul, type ElementSpec, type
 
 export interface TwoMirrorCavity {
 	stable: boolean;
-	/** Why the cavity has no mode ('unstable', 'marginal'), or null. */
+	/** 'boundary': g1·g2 = 0 or 1, the edge of the stability region (not stable: no mode is fixed by the mirrors). */
+	status: 'stable' | 'boundary' | 'unstable';
+	/** Why the cavity has no mode ('unstable', 'on the stability boundary …'), or null. */
 	reason: string | null;
+	/** On the boundary: the mode's limit as the cavity approaches it from the stable side; null otherwise. */
+	limit: BoundaryLimit | null;
 	g1: number;
 	g2: number;
 	/** null when the cavity has no confined mode. */
@@ -29,11 +33,87 @@ export interface TwoMirrorCavity {
 }
 
 /**
+ * Limit of a two-mirror cavity's mode at the stability boundary, approached from the stable side.
+ * A null figure grows without bound there (named in `unbounded`); 0 is a point focus.
+ */
+export interface BoundaryLimit {
+	/** Which boundary: 'confocal' (g1 = g2 = 0), 'centre-on-mirror' (one g = 0, e.g. hemispherical), 'concentric' (g1 = g2 = −1), 'planar' (g1 = g2 = 1) or 'g1g2=1'. */
+	kind: 'confocal' | 'centre-on-mirror' | 'concentric' | 'planar' | 'g1g2=1';
+	/** How the limit is approached, in words. */
+	approach: string;
+	w0_m: number | null;
+	waistFromMirror1_m: number | null;
+	wMirror1_m: number | null;
+	wMirror2_m: number | null;
+	/** Names of the figures that grow without bound at the limit. */
+	unbounded: string[];
+	/** true when the limit mode is finite (a waist > 0 and finite spots): only the confocal cavity. */
+	finite: boolean;
+}
+
+/**
+ * The stability boundary of a two-mirror cavity (Kogelnik & Li 1966, §V, the g1–g2 stability diagram;
+ * Siegman 1986, §19.3): g1·g2 = 0 or 1. There the round-trip half trace (A + D)/2 = 2g1g2 − 1 is ±1 and
+ * the round trip does not fix a Gaussian mode; the limits below follow from eqs. 61–64 as g1·g2 → 0⁺ or
+ * → 1⁻ along the path named in `approach`.
+ */
+function boundaryLimit(g1: number, g2: number, L: number, wavelength_m: number, eps: number): { limit: BoundaryLimit; reason: string } {
+	const k = (wavelength_m * L) / Math.PI;
+	const z = (v: number) => Math.abs(v) <= eps;
+	const edge = 'it sits on the edge of the stability region 0 < g1·g2 < 1, so a small error in a radius or the length makes it unstable';
+	if (z(g1) && z(g2)) {
+		// Symmetric limit R1 = R2 → L: w0² = (λL/2π)·sqrt((1 + g)/(1 − g)) → λL/2π, mirror spots² → λL/π.
+		return {
+			limit: { kind: 'confocal', approach: 'R1 = R2 → L (symmetric)', w0_m: Math.sqrt(k / 2), waistFromMirror1_m: L / 2, wMirror1_m: Math.sqrt(k), wMirror2_m: Math.sqrt(k), unbounded: [], finite: true },
+			reason: `on the stability boundary (confocal, g1 = g2 = 0): the round-trip matrix is −1 ((A+D)/2 = −1): every ray comes back inverted and every Gaussian beam reproduces itself, so the mirrors alone do not fix a mode; ${edge}. The figures given are the limit of the symmetric cavity R1 = R2 → L, the mode commonly matched to`
+		};
+	}
+	if (z(g1) || z(g2)) {
+		// One mirror's centre of curvature lies on the other mirror (e.g. hemispherical, g1 = 1, g2 = 0):
+		// as g_i → 0⁺ the waist shrinks to a point on the other mirror and the spot on mirror i grows without bound.
+		const at2 = z(g1);
+		return {
+			limit: {
+				kind: 'centre-on-mirror',
+				approach: `L → R${at2 ? 1 : 2} from below`,
+				w0_m: 0,
+				waistFromMirror1_m: at2 ? L : 0,
+				wMirror1_m: at2 ? null : 0,
+				wMirror2_m: at2 ? 0 : null,
+				unbounded: [at2 ? 'wMirror1_m' : 'wMirror2_m'],
+				finite: false
+			},
+			reason: `on the stability boundary (g${at2 ? 1 : 2} = 0: mirror ${at2 ? 1 : 2}'s centre of curvature lies on mirror ${at2 ? 2 : 1}${!at2 && z(g1 - 1) ? ', the hemispherical cavity' : at2 && z(g2 - 1) ? ', the hemispherical cavity' : ''}): g1·g2 = 0 and (A+D)/2 = −1; approached with L → R${at2 ? 1 : 2} from below, the waist shrinks to a point on mirror ${at2 ? 2 : 1} and the spot on mirror ${at2 ? 1 : 2} grows without bound, so there is no confined mode to match; ${edge}`
+		};
+	}
+	// g1·g2 = 1.
+	if (z(g1 - 1) && z(g2 - 1)) {
+		return {
+			limit: { kind: 'planar', approach: 'R1 = R2 → ∞ (flat mirrors)', w0_m: null, waistFromMirror1_m: null, wMirror1_m: null, wMirror2_m: null, unbounded: ['w0_m', 'wMirror1_m', 'wMirror2_m'], finite: false },
+			reason: `on the stability boundary (plane-parallel, g1 = g2 = 1): g1·g2 = 1 and (A+D)/2 = 1; as the mirrors flatten the mode grows without bound, so there is no confined mode to match; ${edge}`
+		};
+	}
+	if (z(g1 + 1) && z(g2 + 1)) {
+		return {
+			limit: { kind: 'concentric', approach: 'R1 = R2 → L/2 from above', w0_m: 0, waistFromMirror1_m: L / 2, wMirror1_m: null, wMirror2_m: null, unbounded: ['wMirror1_m', 'wMirror2_m'], finite: false },
+			reason: `on the stability boundary (concentric, g1 = g2 = −1): g1·g2 = 1 and (A+D)/2 = 1; approached from the stable side the waist shrinks to a point at the common centre and the spots on the mirrors grow without bound, so there is no confined mode to match; ${edge}`
+		};
+	}
+	// Elsewhere on g1·g2 = 1 (g1 + g2 ≠ 2): w0² ∝ sqrt(p(1 − p)) → 0 at t1 = L·g2(1 − g1)/(g1 + g2 − 2g1g2).
+	const den = g1 + g2 - 2;
+	return {
+		limit: { kind: 'g1g2=1', approach: 'g1·g2 → 1 from below', w0_m: 0, waistFromMirror1_m: (L * g2 * (1 - g1)) / den, wMirror1_m: null, wMirror2_m: null, unbounded: ['wMirror1_m', 'wMirror2_m'], finite: false },
+		reason: `on the stability boundary (g1·g2 = 1, (A+D)/2 = 1): the spots on the mirrors grow without bound as it is approached, so there is no confined mode to match; ${edge}`
+	};
+}
+
+/**
  * Two-mirror cavity mode (Kogelnik & Li 1966, eqs. 61–64):
  * w1² = (λL/π)·sqrt(g2/(g1(1 − g1g2))), w2² = (λL/π)·sqrt(g1/(g2(1 − g1g2))),
  * w0² = (λL/π)·sqrt(g1g2(1 − g1g2)/(g1 + g2 − 2g1g2)²), t1 = L·g2(1 − g1)/(g1 + g2 − 2g1g2).
- * The symmetric cavity (g1 = g2 = g) uses the limit w0² = (λL/2π)·sqrt((1 + g)/(1 − g)), t1 = L/2, which
- * stays defined for the confocal cavity (g = 0).
+ * The symmetric cavity (g1 = g2 = g) uses w0² = (λL/2π)·sqrt((1 + g)/(1 − g)), t1 = L/2. On the stability
+ * boundary (g1·g2 = 0 or 1: confocal, hemispherical, planar, concentric) the cavity is reported as such,
+ * not stable, with the limit of its mode (`limit`) and the reason.
  * Example: R1 = R2 = 1 m, L = 0.5 m, λ = 1064 nm → g = 0.5, w0 = 0.38295 mm at 0.25 m, w on the mirrors 0.44220 mm.
  */
 export function twoMirrorCavity(r1_m: number, r2_m: number, length_m: number, wavelength_m: number): TwoMirrorCavity {
@@ -44,23 +124,28 @@ export function twoMirrorCavity(r1_m: number, r2_m: number, length_m: number, wa
 	const L = length_m;
 	const g1 = 1 - (Number.isFinite(r1_m) ? L / r1_m : 0);
 	const g2 = 1 - (Number.isFinite(r2_m) ? L / r2_m : 0);
-	const none = (reason: string): TwoMirrorCavity => ({ stable: false, reason, g1, g2, w0_m: null, waistFromMirror1_m: null, wMirror1_m: null, wMirror2_m: null, zR_m: null });
+	const none = (reason: string): TwoMirrorCavity => ({ stable: false, status: 'unstable', reason, limit: null, g1, g2, w0_m: null, waistFromMirror1_m: null, wMirror1_m: null, wMirror2_m: null, zR_m: null });
 	const p = g1 * g2;
 	const eps = 1e-12;
 	const k = (wavelength_m * L) / Math.PI;
-	if (Math.abs(g1 - g2) <= eps && Math.abs(g1) < 1 - eps) {
+	if (p < -eps || p > 1 + eps) return none('unstable: g1·g2 must lie between 0 and 1');
+	if (p <= eps || p >= 1 - eps) {
+		const b = boundaryLimit(g1, g2, L, wavelength_m, eps);
+		return { ...none(b.reason), status: 'boundary', limit: b.limit };
+	}
+	if (Math.abs(g1 - g2) <= eps) {
 		const g = g1;
 		const w0sq = (k / 2) * Math.sqrt((1 + g) / (1 - g));
 		const wm = Math.sqrt(k / Math.sqrt(1 - g * g));
-		return { stable: true, reason: null, g1, g2, w0_m: Math.sqrt(w0sq), waistFromMirror1_m: L / 2, wMirror1_m: wm, wMirror2_m: wm, zR_m: (Math.PI * w0sq) / wavelength_m };
+		return { stable: true, status: 'stable', reason: null, limit: null, g1, g2, w0_m: Math.sqrt(w0sq), waistFromMirror1_m: L / 2, wMirror1_m: wm, wMirror2_m: wm, zR_m: (Math.PI * w0sq) / wavelength_m };
 	}
-	if (p < -eps || p > 1 + eps) return none('unstable: g1·g2 must lie between 0 and 1');
-	if (p <= eps || p >= 1 - eps) return none('marginal: g1·g2 is on the stability boundary (0 or 1), the mode is not confined');
 	const den = g1 + g2 - 2 * p;
 	const w0sq = k * Math.sqrt((p * (1 - p)) / (den * den));
 	return {
 		stable: true,
+		status: 'stable',
 		reason: null,
+		limit: null,
 		g1,
 		g2,
 		w0_m: Math.sqrt(w0sq),
@@ -78,6 +163,8 @@ export interface AxisEigenmode {
 	/** (A + D)/2 of the round trip on this axis. */
 	halfTrace: number;
 	stable: boolean;
+	/** |(A + D)/2| = 1 (to 1e-9): on the stability boundary, where the round trip fixes no Gaussian mode. */
+	boundary: boolean;
 	/** Eigen q̂ at the reference plane (the start of the round trip), null when unstable. */
 	q: QHat | null;
 	w_m: number | null;
@@ -118,13 +205,14 @@ export function roundTripMatrices(parts: RoundTripPart[]): { x: Mat2; y: Mat2 } 
 /**
  * Eigenmode of one axis from its round-trip matrix (Siegman 1986, eqs. 21.8–21.12).
  * Example: confocal two-mirror round trip at λ = 1064 nm (R = L = 1 m, reference plane at a mirror)
- * is on the boundary (|m| = 1): reported unstable.
+ * is on the boundary (|m| = 1): reported not stable, with `boundary` set.
  */
 export function axisEigenmode(m: Mat2, wavelength_m: number): AxisEigenmode {
 	requirePositive(wavelength_m, 'wavelength', 'm');
 	const [A, B, C, D] = m;
 	const half = (A + D) / 2;
-	const none: AxisEigenmode = { halfTrace: half, stable: false, q: null, w_m: null, R_m: null, w0_m: null, toWaist_m: null };
+	const boundary = Math.abs(Math.abs(half) - 1) <= 1e-9;
+	const none: AxisEigenmode = { halfTrace: half, stable: false, boundary, q: null, w_m: null, R_m: null, w0_m: null, toWaist_m: null };
 	if (!(Math.abs(half) < 1 - 1e-12) || Math.abs(B) < 1e-300) return none;
 	const s = Math.sqrt(1 - half * half);
 	const invRe = (D - A) / (2 * B);
@@ -133,7 +221,7 @@ export function axisEigenmode(m: Mat2, wavelength_m: number): AxisEigenmode {
 	const q = { re: invRe / den, im: -invIm / den };
 	void C;
 	const b = beamFromQ(q, { wavelength_m, m2: 1 });
-	return { halfTrace: half, stable: true, q, w_m: b.w_m, R_m: Number.isFinite(b.R_m) ? b.R_m : null, w0_m: b.w0_m, toWaist_m: b.toWaist_m };
+	return { halfTrace: half, stable: true, boundary: false, q, w_m: b.w_m, R_m: Number.isFinite(b.R_m) ? b.R_m : null, w0_m: b.w0_m, toWaist_m: b.toWaist_m };
 }
 
 /** Eigenmode of a general cavity given as one round trip; x and y separately (simple astigmatism). */

@@ -12,6 +12,8 @@
  * Sign conventions: a surface radius is positive when its centre of curvature lies downstream (+z);
  * a mirror radius is positive for a concave (focusing) mirror, f = R/2. The plane of incidence of a
  * tilted element names its tangential axis ('x' means x is tangential, y sagittal).
+ * A thin element immersed in a medium of index n (thin, cylindrical and thermal lenses, curved mirrors)
+ * has its focal length measured in that medium: reduced kick C = −n/f, and −2n/R for a mirror.
  */
 import { requireFinite, requirePositive, requireThat } from './constants';
 
@@ -44,6 +46,17 @@ export const identity: Mat2 = [1, 0, 0, 1];
 /** Thin lens of focal length f: [[1, 0], [−1/f, 1]] (Kogelnik & Li 1966, Table I). Infinite f is a window. */
 export function thinLensMatrix(f_m: number): Mat2 {
 	return [1, 0, -1 / f_m, 1];
+}
+
+/**
+ * Reduced matrix of a thin lens (or a mirror's equivalent lens) of focal length f immersed in a medium
+ * of index n: f is measured in that medium (a collimated beam focuses at distance f), so the ray slope
+ * obeys r′ → r′ − r/f and the reduced slope n·r′ gets C = −n/f (Siegman 1986, §15.2: reduced slope;
+ * Kogelnik & Li 1966, Table I for n = 1). A mirror's focal length is R/2 in any medium, since reflection
+ * is geometric: the physical q obeys 1/q′ = 1/q − 2/R, hence C = −2n/R in the reduced form.
+ */
+export function reducedThinLensMatrix(f_m: number, index: number): Mat2 {
+	return [1, 0, -index / f_m, 1];
 }
 
 /** Reduced free-space matrix: [[1, d/n], [0, 1]] (Siegman 1986, eq. 15.26). */
@@ -160,18 +173,20 @@ export function compileElement(spec: ElementSpec, n0: number): { steps: Step[]; 
 	validate(spec);
 	const kick = (x: Mat2, y: Mat2 = x): Step => ({ op: 'kick', x, y });
 	switch (spec.kind) {
+		// Thin lenses and mirrors: f is the focal length in the medium n0 they sit in, so the reduced
+		// kick is C = −n0/f (see reducedThinLensMatrix).
 		case 'thinLens':
-			return { steps: [kick(thinLensMatrix(spec.f_m))], length_m: 0, indexAfter: n0 };
+			return { steps: [kick(reducedThinLensMatrix(spec.f_m, n0))], length_m: 0, indexAfter: n0 };
 		case 'cylLens': {
-			const m = thinLensMatrix(spec.f_m);
+			const m = reducedThinLensMatrix(spec.f_m, n0);
 			return { steps: [spec.axis === 'x' ? kick(m, identity) : kick(identity, m)], length_m: 0, indexAfter: n0 };
 		}
 		case 'thermalLens':
-			return { steps: [kick(thinLensMatrix(spec.fx_m), thinLensMatrix(spec.fy_m))], length_m: 0, indexAfter: n0 };
+			return { steps: [kick(reducedThinLensMatrix(spec.fx_m, n0), reducedThinLensMatrix(spec.fy_m, n0))], length_m: 0, indexAfter: n0 };
 		case 'mirror': {
 			const { tangential_m, sagittal_m } = mirrorFocalLengths(spec.r_m, spec.angle_rad);
-			const t = thinLensMatrix(tangential_m);
-			const s = thinLensMatrix(sagittal_m);
+			const t = reducedThinLensMatrix(tangential_m, n0);
+			const s = reducedThinLensMatrix(sagittal_m, n0);
 			return { steps: [spec.plane === 'x' ? kick(t, s) : kick(s, t)], length_m: 0, indexAfter: n0 };
 		}
 		case 'foldMirror':

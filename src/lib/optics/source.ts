@@ -2,6 +2,7 @@
  * Source beams: turn what a datasheet or a measurement gives into a waist (w0, z0) per axis.
  * z is measured from the source's reference plane (the laser's exit aperture, z = 0), +z downstream.
  */
+import { requireParaxial } from './paraxial';
 import { farFieldHalfAngle_rad, rayleighRange_m } from './beam';
 import { requireFinite, requirePositive, requireThat } from './constants';
 
@@ -36,7 +37,7 @@ export interface AxisWaist {
 /**
  * Waist from a diameter d at plane z_p and full divergence Θ: w0 = M²λ/(π·n·Θ/2)... here M² is
  * already inside Θ, so w0 = λ_eff/(π·n·θ) with θ = Θ/2 and λ_eff = M²λ (Siegman 1986, eq. 17.16),
- * then |z_p − z0| = zR·sqrt((w/w0)² − 1) (Kogelnik & Li 1966, eq. 20).
+ * then |z_p − z0| = zR·sqrt((w/w0)² − 1) (Kogelnik & Li 1966, eq. 20, number from memory).
  * Example: d = 2 mm, Θ = 1 mrad, λ = 1064 nm, M² = 1 → w0 = 0.6773 mm, waist 1.4713 m behind the plane.
  */
 export function waistFromDivergence(
@@ -126,8 +127,14 @@ export function waistFromTwoDiameters(d1_m: number, z1_m: number, d2_m: number, 
 	return res;
 }
 
-/** Resolve one axis of a source to its waist. */
+/** Resolve one axis of a source to its waist; a waist outside the paraxial range is refused (paraxial.ts). */
 export function resolveAxis(axis: AxisSource, wavelength_m: number, index: number): AxisWaist {
+	const w = resolveAxisUnchecked(axis, wavelength_m, index);
+	requireParaxial(w.w0_m, wavelength_m, w.m2, index, 'source waist radius');
+	return w;
+}
+
+function resolveAxisUnchecked(axis: AxisSource, wavelength_m: number, index: number): AxisWaist {
 	requirePositive(wavelength_m, 'wavelength', 'm');
 	requireThat(Number.isFinite(axis.m2) && axis.m2 >= 1, 'M²', '≥ 1', axis.m2);
 	requireThat(Number.isFinite(index) && index >= 1, 'source medium index', '≥ 1', index);

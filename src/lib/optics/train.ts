@@ -143,7 +143,9 @@ export function propagate(input: TrainInput): Propagation {
 
 	const travel = (length: number, redX: number, redY: number, index: number, insideId: string | null) => {
 		if (length <= 0) return;
-		segments.push({ z0_m: z, z1_m: z + length, index, kx: redX / length, ky: redY / length, qx, qy, gouyX_rad: gx, gouyY_rad: gy, insideId, afterLabel });
+		// Plain media advance q̂ by exactly 1/n per metre (kept exact so that the beam read out is too).
+		const k = (red: number) => (red === length / index ? 1 / index : red / length);
+		segments.push({ z0_m: z, z1_m: z + length, index, kx: k(redX), ky: k(redY), qx, qy, gouyX_rad: gx, gouyY_rad: gy, insideId, afterLabel });
 		const nqx = { re: qx.re + redX, im: qx.im };
 		const nqy = { re: qy.re + redY, im: qy.im };
 		gx += Math.atan2(nqx.re, nqx.im) - Math.atan2(qx.re, qx.im);
@@ -182,8 +184,10 @@ export function propagate(input: TrainInput): Propagation {
 		let transmitted = 1;
 		if (el.aperture_m !== null) {
 			const a = el.aperture_m / 2;
-			transmitted = clippedTransmission(a, before.x.w_m, before.y.w_m);
 			const wMax = Math.max(before.x.w_m, before.y.w_m);
+			// Past a = 3·w the power outside is below exp(−18) ≈ 1.5e-8 for any ellipse (the round
+			// beam of the larger radius bounds it; Siegman 1986, eq. 17.9): skip the angular integral.
+			transmitted = a > 3 * wMax ? 1 : clippedTransmission(a, before.x.w_m, before.y.w_m);
 			if (wMax >= a) {
 				warnings.push({
 					code: 'larger-than-aperture',
@@ -232,13 +236,13 @@ export function propagate(input: TrainInput): Propagation {
 	const waists: Waist[] = [];
 	segments.forEach((s, i) => {
 		for (const axis of ['x', 'y'] as const) {
-			const q = axis === 'x' ? s.qx : s.qy;
-			const k = axis === 'x' ? s.kx : s.ky;
+			const q = physicalQ(axis === 'x' ? s.qx : s.qy, axis === 'x' ? s.kx : s.ky, s.index);
 			const props = axis === 'x' ? propsX : propsY;
-			const zw = s.z0_m - q.re / k;
+			// In the true reduced q̂ the beam advances by 1/n per metre of path.
+			const zw = s.z0_m - q.re * s.index;
 			const b = beamFromQ({ re: 0, im: q.im }, props, s.index);
 			const virtual = zw < s.z0_m - 1e-12 || zw > s.z1_m + 1e-12;
-			waists.push({ axis, segment: i, z_m: zw, w0_m: b.w_m, zR_m: q.im / k, virtual, insideId: s.insideId });
+			waists.push({ axis, segment: i, z_m: zw, w0_m: b.w_m, zR_m: q.im * s.index, virtual, insideId: s.insideId });
 		}
 	});
 	for (const w of waists) {
@@ -269,6 +273,24 @@ export function propagate(input: TrainInput): Propagation {
 	};
 }
 
+/**
+ * The true reduced q̂ on a segment from the one the train carries. In plain media they are the same
+ * (k = 1/n). Inside a tilted plate the train carries the outside-equivalent q̂, which advances by the
+ * plate's effective reduced length k per metre of path (Kogelnik, Ippen, Dienes & Shank, IEEE JQE 8,
+ * 373 (1972), eqs. 4–5); the beam inside has q̂_in = q̂·cos²θ2/cos²θ1 on the tangential axis, i.e.
+ * q̂/(k·n), so that its width scales by cosθ2/cosθ1 and it advances by 1/n per metre.
+ */
+function physicalQ(q: QHat, k: number, index: number): QHat {
+	const s = plateScale(k, index);
+	return s === 1 ? q : { re: q.re * s, im: q.im * s };
+}
+
+/** 1/(k·n): 1 in plain media (exactly, so that rounding leaves their beams untouched). */
+function plateScale(k: number, index: number): number {
+	const kn = k * index;
+	return Math.abs(kn - 1) < 1e-12 ? 1 : 1 / kn;
+}
+
 /** Index of the segment holding z (the first one at a shared boundary downstream of an element). */
 export function segmentAt(p: Propagation, z_m: number): number {
 	const segs = p.segments;
@@ -291,8 +313,8 @@ export function segmentAt(p: Propagation, z_m: number): number {
 export function beamAt(p: Propagation, z_m: number): { x: BeamAt; y: BeamAt } {
 	const s = p.segments[segmentAt(p, z_m)];
 	const dz = z_m - s.z0_m;
-	const qx = { re: s.qx.re + dz * s.kx, im: s.qx.im };
-	const qy = { re: s.qy.re + dz * s.ky, im: s.qy.im };
+	const qx = physicalQ({ re: s.qx.re + dz * s.kx, im: s.qx.im }, s.kx, s.index);
+	const qy = physicalQ({ re: s.qy.re + dz * s.ky, im: s.qy.im }, s.ky, s.index);
 	const bx = beamFromQ(qx, { wavelength_m: p.wavelength_m, m2: p.m2x }, s.index);
 	const by = beamFromQ(qy, { wavelength_m: p.wavelength_m, m2: p.m2y }, s.index);
 	bx.gouy_rad = s.gouyX_rad + Math.atan2(qx.re, qx.im) - Math.atan2(s.qx.re, s.qx.im);
@@ -305,9 +327,11 @@ export function radiusAt(p: Propagation, z_m: number, axis: 'x' | 'y'): number {
 	const s = p.segments[segmentAt(p, z_m)];
 	const dz = z_m - s.z0_m;
 	const q = axis === 'x' ? s.qx : s.qy;
-	const re = q.re + dz * (axis === 'x' ? s.kx : s.ky);
+	const k = axis === 'x' ? s.kx : s.ky;
+	const re = q.re + dz * k;
 	const m2 = axis === 'x' ? p.m2x : p.m2y;
-	return Math.sqrt((m2 * p.wavelength_m * (re * re + q.im * q.im)) / (Math.PI * q.im));
+	// Scaled to the true q̂ inside a tilted plate (see physicalQ): w² scales with it.
+	return Math.sqrt((m2 * p.wavelength_m * (re * re + q.im * q.im) * plateScale(k, s.index)) / (Math.PI * q.im));
 }
 
 function fmtM(v: number): string {

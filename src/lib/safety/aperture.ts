@@ -2,7 +2,7 @@
  * Power of a Gaussian beam through a circular aperture centred on the beam, and the irradiance
  * averaged over it — the quantity exposure limits are compared with (the limiting aperture).
  *
- * Beam radius w is the 1/e² intensity radius (DESIGN.md). Simple astigmatism: w_x and w_y may differ.
+ * Beam radius w is the 1/e² intensity radius (DEVELOPERS.md, conventions). Simple astigmatism: w_x and w_y may differ.
  */
 
 /**

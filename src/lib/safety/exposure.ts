@@ -11,8 +11,8 @@
  * Every rule's value is returned; the smallest per-pulse radiant exposure limits and is named.
  */
 import { caution } from './cautions';
-import { editionOf, evaluateEdition, evaluateMechanism, standardIds, type StandardChoice } from './limits/index';
-import type { FactorReport, LimitInput, LimitResult, StandardId, Target } from './limits/types';
+import { editionOf, evaluateEdition, evaluateMechanism, provenanceLineOf, standardIds, type StandardChoice } from './limits/index';
+import type { FactorReport, LimitInput, LimitResult, Provenance, StandardId, Target } from './limits/types';
 
 export type ViewingCase = 'accidental' | 'worst-case' | 'deliberate';
 export const viewingCases: readonly ViewingCase[] = ['accidental', 'worst-case', 'deliberate'];
@@ -103,6 +103,13 @@ export interface PulseTrainResult {
 	factors: FactorReport[];
 	cpSource: string;
 	groupingSource: string;
+	/** Read from the published text, or recalled: of the rows behind the limiting rule (and the grouping time for rule 3). */
+	provenance: Provenance;
+	/** Table + row + source of the rows behind the limiting rule. */
+	limitSource: string;
+	provenanceLine: string;
+	/** When the default "stricter of both" chose this edition: what the other edition gave (per-pulse limit), else null. */
+	comparedWith: { standardId: StandardId; perPulse_J_m2: number; rule: PulseRuleName } | null;
 	notes: readonly string[];
 	caution: string;
 }
@@ -120,7 +127,15 @@ export function evaluatePulseTrain(standard: StandardChoice, input: PulseTrainIn
 	if (!(T >= tau)) throw new RangeError(`exposure duration must be at least one pulse width (${tau} s) — got ${T} s`);
 	if (standard === 'stricter') {
 		const all = standardIds.map((id) => evaluatePulseTrain(id, input));
-		return all.reduce((a, b) => (b.perPulse_J_m2 < a.perPulse_J_m2 ? b : a));
+		const best = all.reduce((a, b) => (b.perPulse_J_m2 < a.perPulse_J_m2 ? b : a));
+		const other = all.find((r) => r !== best) ?? null;
+		const apMin = Math.min(...all.map((r) => r.limitingAperture_m));
+		return {
+			...best,
+			limitingAperture_m: apMin,
+			comparedWith: other && { standardId: other.standardId, perPulse_J_m2: other.perPulse_J_m2, rule: other.rule },
+			limitSource: apMin < best.limitingAperture_m ? `${best.limitSource}. Smaller limiting aperture ${+(apMin * 1e3).toPrecision(4)} mm from the other edition (the stricter of both)` : best.limitSource
+		};
 	}
 	const id = standard;
 	const edition = editionOf(id);
@@ -147,8 +162,10 @@ export function evaluatePulseTrain(standard: StandardChoice, input: PulseTrainIn
 		}
 	];
 	const Tg = edition.groupingTime_s(lambda_nm);
+	const groupingNote = edition.groupingNote(lambda_nm);
 	let CP: number | null = null;
 	let grouped = false;
+	let thermalRow: { source: string; provenance: Provenance } | null = null;
 	const notApplicable = (why: string): PulseRule => ({ rule: 'repetitive pulse (C_P)', applies: false, perPulse_J_m2: 0, averageIrradiance_W_m2: 0, limitingAperture_m: 0, detail: why });
 	if (!edition.cpApplies(single.target, lambda_nm, 'thermal')) rules.push(notApplicable(`not applicable: ${edition.cpSource}`));
 	else if (!Number.isFinite(Tg)) rules.push(notApplicable('not applicable: the edition lists no pulse-grouping time at this wavelength'));
@@ -168,14 +185,19 @@ export function evaluatePulseTrain(standard: StandardChoice, input: PulseTrainIn
 				perPulse_J_m2: pp,
 				averageIrradiance_W_m2: pp * f,
 				limitingAperture_m: edition.aperture_m(single.target, lambda_nm, groupT),
-				detail: grouped
+				detail: (grouped
 					? `pulses closer than the grouping time ${Tg} s count as one: ${+perGroup.toPrecision(6)} pulses per ${groupT} s group, C_P = ${+groups.toPrecision(6)}^−0.25 = ${+CP.toPrecision(4)} on ${thermal.expression}`
-					: `C_P = N^−0.25 = ${+CP.toPrecision(4)} on the single-pulse thermal limit (${thermal.expression})`
+					: `C_P = N^−0.25 = ${+CP.toPrecision(4)} on the single-pulse thermal limit (${thermal.expression})`) + (groupingNote ? ` — ${groupingNote}` : '')
 			});
+			thermalRow = thermal;
 		}
 	}
 	const applicable = rules.filter((r) => r.applies);
 	const limiting = applicable.reduce((a, b) => (b.perPulse_J_m2 < a.perPulse_J_m2 ? b : a));
+	const rowBehind: { source: string; provenance: Provenance } = limiting.rule === 'single pulse' ? single.row : limiting.rule === 'average power' ? average.row : thermalRow!;
+	const resBehind = limiting.rule === 'average power' ? average : single;
+	const provenance: Provenance = rowBehind.provenance === 'recalled' || resBehind.provenance === 'recalled' || edition.provenanceLabel ? 'recalled' : 'published-text';
+	const limitSource = `${rowBehind.source}${limiting.rule === 'repetitive pulse (C_P)' ? `; ${edition.cpSource}${groupingNote ? `; ${groupingNote}` : ''}` : ''}`;
 	const factors = [...single.factors];
 	if (CP !== null) factors.push({ name: 'C_P', iecName: 'C5', value: CP, unit: '', meaning: 'repetitive-pulse correction N^−0.25' });
 	return {
@@ -200,7 +222,11 @@ export function evaluatePulseTrain(standard: StandardChoice, input: PulseTrainIn
 		factors,
 		cpSource: edition.cpSource,
 		groupingSource: edition.groupingSource,
-		notes: edition.notes,
+		provenance,
+		limitSource,
+		provenanceLine: provenanceLineOf(edition, provenance),
+		comparedWith: null,
+		notes: groupingNote && CP !== null ? [...edition.notes, groupingNote] : edition.notes,
 		caution
 	};
 }

@@ -5,7 +5,7 @@
  * distances are the same as comparing one pulse with the per-pulse limit).
  *
  * Beam sizes: the formula forms of IEC TR 60825-14 and ANSI Z136.1 use the 1/e diameter a and the
- * 1/e full divergence φ; our inputs are 1/e² (DESIGN.md), so a = d/√2 and φ = Θ/√2. With these,
+ * 1/e full divergence φ; our inputs are 1/e² (DEVELOPERS.md, conventions), so a = d/√2 and φ = Θ/√2. With these,
  * 4P/(π·a²) is the peak (on-axis) irradiance of a Gaussian beam.
  */
 import { apertureAveragedIrradiance_W_m2, peakIrradiance_W_m2 } from './aperture';
@@ -36,7 +36,7 @@ function requirePositive(v: number, name: string, unit: string) {
 /**
  * NOHD = (√(4·P·K/(π·E_MPE)) − a)/φ, zero when the beam is already below the limit at the exit.
  * Formula form of IEC TR 60825-14 and ANSI Z136.1 (K = 1 for the naked eye).
- * Example: 5 W, E_MPE = 25.46 W/m², d = 2.83 mm, Θ = 1.41 mrad (a = 2.0 mm, φ = 1.0 mrad) → 498.0 m.
+ * Example: 5 W, E_MPE = 25.46 W/m², d = 2.83 mm, Θ = 1.41 mrad (a = 2.001 mm, φ = 0.9970 mrad) → 499.5 m.
  */
 export function nohdFormula(input: FormulaNohdInput): FormulaNohd {
 	const { power_W, mpe_W_m2, diameter_m, fullDivergence_rad, gain = 1 } = input;
@@ -83,7 +83,7 @@ export function opticalGain(optic: ViewingOptic, pupil_m: number): number {
  * Hazard distance for a diffuse (Lambertian) reflection of the whole beam, viewed at angle θ from the
  * surface normal: E(r) = ρ·P·cosθ/(π·r²) ⇒ r = √(ρ·P·cosθ/(π·E_MPE)). Form of ANSI Z136.1 (diffuse
  * reflection NHZ). The reflecting spot is treated as a point source (C_E = 1), which is stricter.
- * Example: 5 W, ρ = 0.9, θ = 0, E_MPE = 25.46 W/m² → 0.2375 m.
+ * Example: 5 W, ρ = 0.9, θ = 0, E_MPE = 25.46 W/m² → √(0.9·5/(π·25.46)) = 0.2372 m.
  */
 export function diffuseHazardDistance_m(input: { power_W: number; mpe_W_m2: number; reflectance: number; viewingAngle_rad: number }): number {
 	const { power_W, mpe_W_m2, reflectance, viewingAngle_rad } = input;

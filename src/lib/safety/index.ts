@@ -10,3 +10,4 @@ export * from './hazard';
 export * from './propagated';
 export * from './assess';
 export * from './inventory';
+export * from './lines';

@@ -125,7 +125,7 @@ function check(input: BeamPathInput) {
  * The grid is refined around every local maximum (golden-section search) so a narrow focus between
  * grid points is not missed, and each zone edge is found by bisection to 1e-9 relative.
  * Example: the 5 W, 2.83 mm, 1.41 mrad beam with E_MPE = 25.46 W/m² and a 7 mm aperture: NOHD 501.5 m,
- * the far-field formula gives 498.0 m.
+ * the far-field formula gives 499.5 m.
  */
 export function beamPathExposure(input: BeamPathInput): BeamPathResult {
 	check(input);
@@ -205,7 +205,8 @@ export function beamPathExposure(input: BeamPathInput): BeamPathResult {
  * With a viewing optic the objective collects through radius r_c = min(D_o, M·D)/2 and passes τ of it
  * into the eye's aperture: τ·P(1 − exp(−2r_c²/w²))/(π(D/2)²).
  * Returns 0 when the beam is below the limit everywhere past the waist.
- * Example: 5 W, w0 = 1.415 mm, θ = 0.705 mrad, E_MPE = 25.46 W/m², D = 7 mm → 501.55 m.
+ * Example: 5 W, w0 = 1.415 mm, θ = 0.705 mrad, E_MPE = 25.46 W/m², D = 7 mm → 501.51 m
+ * (with E_MPE = 18·0.25^0.75/0.25 = 25.456 W/m² unrounded: 501.55 m).
  */
 export function gaussianNohd_m(input: { power_W: number; mpe_W_m2: number; aperture_m: number; waistRadius_m: number; halfAngle_rad: number; waistAt_m?: number; optic?: ViewingOptic }): number {
 	const { power_W, mpe_W_m2, aperture_m, waistRadius_m: w0, halfAngle_rad: th, waistAt_m = 0, optic } = input;

@@ -6,7 +6,7 @@
  * It weighs ~70 kB gzip, so the browser loads it lazily; the everyday form "number + SI prefix +
  * base unit" is read by a small fast path that a test checks against mathjs for every prefix and
  * unit. Until mathjs has loaded, other forms report `pending` and are re-read once it arrives.
- * Validators return a result object with a message instead of throwing (STYLE.md rule 5).
+ * Validators return a result object with a message instead of throwing (DEVELOPERS.md, "Errors").
  */
 import { formatSI } from './format';
 

@@ -24,16 +24,16 @@ import { readSafety, type SafetyDoc, type SafetyKey } from './safetyDoc';
 
 export const fieldSpecs = {
 	wavelength: { label: 'Wavelength', kind: 'length', min_si: 180e-9, max_si: 1e-3 },
-	power: { label: 'Power', kind: 'power', above_si: 0 },
-	pulseEnergy: { label: 'Pulse energy', kind: 'energy', above_si: 0 },
+	power: { label: 'Power', kind: 'power', above_si: 0, max_si: 1e15 },
+	pulseEnergy: { label: 'Pulse energy', kind: 'energy', above_si: 0, max_si: 1e9 },
 	pulseWidth: { label: 'Pulse width', kind: 'time', min_si: 1e-13, max_si: 3e4 },
-	repRate: { label: 'Repetition rate', kind: 'frequency', above_si: 0 },
-	diameter: { label: 'Beam diameter (1/e², at exit)', kind: 'length', above_si: 0 },
+	repRate: { label: 'Repetition rate', kind: 'frequency', above_si: 0, max_si: 1e15 },
+	diameter: { label: 'Beam diameter (1/e², at exit)', kind: 'length', above_si: 0, max_si: 10 },
 	divergence: { label: 'Divergence (1/e², full angle)', kind: 'angle', above_si: 0, max_si: Math.PI },
 	duration: { label: 'Exposure duration', kind: 'time', min_si: 1e-13, max_si: 3e4 },
 	sourceAngle: { label: 'Apparent source angle α', kind: 'angle', min_si: 0, max_si: Math.PI },
-	opticAperture: { label: 'Objective diameter', kind: 'length', above_si: 0 },
-	opticMagnification: { label: 'Magnification', kind: 'dimensionless', above_si: 0 },
+	opticAperture: { label: 'Objective diameter', kind: 'length', above_si: 0, max_si: 10 },
+	opticMagnification: { label: 'Magnification', kind: 'dimensionless', above_si: 0, max_si: 1e4 },
 	opticTransmission: { label: 'Transmission', kind: 'dimensionless', above_si: 0, max_si: 1 },
 	reflectance: { label: 'Reflectance', kind: 'dimensionless', min_si: 0, max_si: 1 },
 	viewingAngle: { label: 'Viewing angle from normal', kind: 'angle', min_si: 0, max_si: Math.PI / 2 }

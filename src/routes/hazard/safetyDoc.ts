@@ -1,18 +1,19 @@
 /**
  * The `safety` section of the setup document: the hazard workspace's inputs as the user typed them
  * (text with units, so nothing is lost while invalid) and the lab inventory CSV. Validated on every
- * read; a section that fails is replaced by the defaults for display and the reason is shown, while
- * the stored text is left as it was until the user edits.
+ * read and repaired field by field (`repair.ts`): an unreadable field is reset and its old text kept
+ * under `unreadable`; every other field stays as stored.
  */
 import * as v from 'valibot';
 import { standardChoices } from '$lib/safety/limits/index';
 import { viewingCases } from '$lib/safety/exposure';
+import { repairSection } from '$lib/document/repair';
 
 const text = (d: string) => v.optional(v.string(), d);
 
 export const SafetySchema = v.object({
 	version: v.optional(v.literal(1), 1),
-	label: text('Teal line alignment module'),
+	label: text('Demo laser C (514.5 nm)'),
 	standard: v.optional(v.picklist(standardChoices as unknown as [string, ...string[]]), 'stricter'),
 	/** 'exit': waist at the exit aperture from diameter and divergence; 'bench': the beam the Bench propagates. */
 	beamFrom: v.optional(v.picklist(['exit', 'bench']), 'exit'),
@@ -42,12 +43,8 @@ export type SafetyKey = keyof SafetyDoc;
 
 export const safetyDefaults: SafetyDoc = v.parse(SafetySchema, {});
 
-/** Read the section; `problem` says why stored content was not usable. */
+/** Read the section, repairing field by field; `problem` names each field that was reset. */
 export function readSafety(raw: unknown): { doc: SafetyDoc; problem: string | null } {
-	if (raw === undefined) return { doc: safetyDefaults, problem: null };
-	const r = v.safeParse(SafetySchema, raw);
-	if (r.success) return { doc: r.output, problem: null };
-	const issue = r.issues[0];
-	const where = issue.path?.map((p) => String(p.key)).join('.') ?? 'section';
-	return { doc: safetyDefaults, problem: `The saved hazard inputs could not be read (${where}: ${issue.message}); defaults are shown.` };
+	const r = repairSection(SafetySchema as never, raw, safetyDefaults, 'hazard inputs');
+	return { doc: r.section as SafetyDoc, problem: r.problem };
 }

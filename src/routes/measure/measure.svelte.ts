@@ -17,6 +17,7 @@ import {
 	type WidthsResult
 } from '$lib/optics/iso11146/index';
 import type { SetupStore } from '$lib/document/store.svelte';
+import { repairSection } from '$lib/document/repair';
 
 /** Length units offered for z and diameters, metres per unit. */
 export const lengthUnits = [
@@ -39,12 +40,25 @@ export const MeasureSchema = v.object({
 	weighting: v.picklist(['relative', 'plain']),
 	/** Where the measurement's z = 0 lies on the bench axis. */
 	zOffset: v.string(),
-	pixel: v.string()
+	pixel: v.string(),
+	/** Knife-edge or slit scans typed or pasted by the user (text kept as entered). */
+	knife: v.optional(
+		v.array(
+			v.object({
+				axis: v.picklist(['x', 'y']),
+				kind: v.picklist(['knife', 'slit']),
+				z: v.string(),
+				xUnit: v.picklist(unitKeys),
+				scan: v.string()
+			})
+		),
+		[]
+	)
 });
 export type MeasureDoc = v.InferOutput<typeof MeasureSchema>;
 
 export function defaultMeasure(): MeasureDoc {
-	return { widths: '', zUnit: 'mm', dUnit: 'um', wavelength: '', wavelengthFrom: 'bench', weighting: 'relative', zOffset: '0 mm', pixel: '5.5 um' };
+	return { widths: '', zUnit: 'mm', dUnit: 'um', wavelength: '', wavelengthFrom: 'bench', weighting: 'relative', zOffset: '0 mm', pixel: '5.5 um', knife: [] };
 }
 
 export const fields = {
@@ -83,9 +97,9 @@ export class MeasureState {
 		if (raw === undefined) return { doc: defaultMeasure(), problem: null };
 		// A section saved before the wavelength could follow the bench keeps the wavelength it typed.
 		const from = (raw as Record<string, unknown>).wavelengthFrom ?? ((raw as Record<string, unknown>).wavelength ? 'typed' : 'bench');
-		const r = v.safeParse(MeasureSchema, { ...defaultMeasure(), ...raw, wavelengthFrom: from });
-		if (r.success) return { doc: r.output, problem: null };
-		return { doc: defaultMeasure(), problem: `The saved Measure inputs could not be read (${r.issues[0].message}); defaults are shown.` };
+		// Field by field: one unreadable field is reset (its text kept under `unreadable`), the rest stays.
+		const r = repairSection(MeasureSchema as never, { ...defaultMeasure(), ...raw, wavelengthFrom: from }, defaultMeasure(), 'Measure inputs');
+		return { doc: r.section as MeasureDoc, problem: r.problem };
 	});
 	get doc(): MeasureDoc {
 		return this.read.doc;
@@ -199,8 +213,13 @@ export class MeasureState {
 				out.push({ name, z_m: z, d_m: d, residual_m: [], fitZ_m: new Float64Array(0), fitD_m: new Float64Array(0), fit: null });
 				continue;
 			}
-			const lo = Math.min(...z, f.z0_m);
-			const hi = Math.max(...z, f.z0_m);
+			// Loops, not Math.min(...z): spreading ~10⁵ planes overflows the call stack.
+			let lo = f.z0_m;
+			let hi = f.z0_m;
+			for (const zi of z) {
+				if (zi < lo) lo = zi;
+				if (zi > hi) hi = zi;
+			}
 			const pad = 0.04 * (hi - lo || 1e-3);
 			const s = sampleCaustic(f, lo - pad, hi + pad, 240);
 			out.push({ name, z_m: z, d_m: d, residual_m: f.residuals.map((q) => q.residual_m), fitZ_m: s.z_m, fitD_m: s.d_m, fit: f });
@@ -261,6 +280,38 @@ export class MeasureState {
 			d.source.y = { ...d.source.y, kind: 'waist', ...y };
 		});
 		return null;
+	}
+
+	/**
+	 * Append knife-edge widths: scans at the same z for x and y make one plane z, dx, dy; when every
+	 * scan is of one axis and the table is empty or has one diameter column, rows z, d. Returns an
+	 * error message or null.
+	 */
+	addKnifePlanes(scans: Array<{ z_m: number; axis: 'x' | 'y'; d_m: number }>): string | null {
+		if (scans.length === 0) return 'No fitted scan with a valid z to add.';
+		const t = this.table;
+		const axes = new Set(scans.map((s) => s.axis));
+		const oneAxis = axes.size === 1;
+		const tableCols = t && t.ok ? t.value.columns : null;
+		if (oneAxis && tableCols !== 'xy') {
+			const zu = t && t.ok ? t.value.zUnit_m : unitMetres(this.doc.zUnit);
+			const du = t && t.ok ? t.value.dUnit_m : unitMetres(this.doc.dUnit);
+			const num = (x: number) => Number(x.toPrecision(6)).toString();
+			const lines = scans.map((s) => `${num(s.z_m / zu)},${num(s.d_m / du)}`);
+			const base = this.doc.widths.trimEnd();
+			this.set('widths', (base === '' ? 'z,d\n' : base + '\n') + lines.join('\n') + '\n', true);
+			return null;
+		}
+		const byZ = new Map<number, { x?: number; y?: number }>();
+		for (const s of scans) {
+			const e = byZ.get(s.z_m) ?? {};
+			if (e[s.axis] !== undefined) return `Two ${s.axis} scans at the same z (${formatSI(s.z_m, 'm', 4)}): keep one.`;
+			e[s.axis] = s.d_m;
+			byZ.set(s.z_m, e);
+		}
+		const lonely = [...byZ.entries()].filter(([, e]) => e.x === undefined || e.y === undefined).map(([z]) => formatSI(z, 'm', 4));
+		if (lonely.length) return `A table with dx and dy needs an x and a y scan at each z; missing a partner at z = ${lonely.join(', ')}.`;
+		return this.addPlanes([...byZ.entries()].map(([z_m, e]) => ({ z_m, dx_m: e.x!, dy_m: e.y! })));
 	}
 
 	/**

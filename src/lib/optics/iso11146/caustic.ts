@@ -9,7 +9,7 @@ import { fittedDiameter_m, type CausticFit } from './fit';
  * Units: d0_m, z0_m, wavelength_m, z_m in m; returns m.
  * Example: d0 = 1 mm, z0 = 0, M² = 1, λ = 1064 nm, z = 1 m → Θ = 1.3547 mrad, d = 1.6822 mm.
  * Source: ISO 11146-1:2005, clause 3 definitions of Θ and M² (from memory); for M² = 1 this is
- * w(z) = w0·√(1 + (z/zR)²) of H. Kogelnik, T. Li, "Laser Beams and Resonators", Appl. Opt. 5 (1966), eq. 20.
+ * w(z) = w0·√(1 + (z/zR)²) of H. Kogelnik, T. Li, "Laser Beams and Resonators", Appl. Opt. 5 (1966), eq. 20 (number from memory).
  */
 export function causticDiameter_m(d0_m: number, z0_m: number, m2: number, wavelength_m: number, z_m: number): number {
 	if (!(d0_m > 0)) throw new RangeError(`waist diameter must be > 0 m — got ${d0_m} m`);

@@ -8,7 +8,7 @@
  *   zR = √(4ac − b²)/(2c) = d0/Θ       Rayleigh length
  *   M² = π/(8λ)·√(4ac − b²) = π·d0·Θ/(4λ)
  *
- * Conventions (DESIGN.md): d is the second-moment (D4σ) diameter = 2w, SI units (m, rad), x and y
+ * Conventions (DEVELOPERS.md): d is the second-moment (D4σ) diameter = 2w, SI units (m, rad), x and y
  * are fitted independently (simple astigmatism). Each figure carries a standard uncertainty
  * propagated from the covariance of (a, b, c) to first order (GUM, JCGM 100:2008, eq. 13).
  *
@@ -61,6 +61,8 @@ interface FitCommon {
 
 export interface PhysicalFit extends FitCommon, BeamFigures {
 	physical: true;
+	/** Set when the fitted M² lies below 1 but within two standard uncertainties of it (noise can do that). */
+	note?: string;
 	/** Standard uncertainties (1σ) from the fit covariance; null when n = 3 (no residual degrees of freedom). */
 	uncertainty: { [K in keyof BeamFigures]: number | null } | null;
 	residuals: FitResidual[];
@@ -70,9 +72,24 @@ export interface PhysicalFit extends FitCommon, BeamFigures {
 
 export interface UnphysicalFit extends FitCommon {
 	physical: false;
-	/** Why the fitted hyperbola is not a beam caustic (c ≤ 0 or 4ac − b² ≤ 0). */
+	/** Why the fitted hyperbola is not a beam caustic (c ≤ 0, 4ac − b² ≤ 0, or M² below 1). */
 	reason: string;
+	/** For M² < 1: the likely causes, in words. */
+	likelyCauses?: string[];
+	/** For M² < 1: the figures the hyperbola gives, for diagnosis only (not a real beam), with their uncertainties. */
+	figures?: BeamFigures;
+	figureUncertainty?: { [K in keyof BeamFigures]: number | null } | null;
 }
+
+/**
+ * Likely causes of a fitted M² below 1, which no real beam has (ISO 11146-1:2005, clause 3: M² ≥ 1,
+ * equal to 1 for a TEM00 Gaussian beam; from memory).
+ */
+export const M2_BELOW_ONE_CAUSES: readonly string[] = [
+	'wrong wavelength (M² scales as 1/λ)',
+	'widths that are not second-moment (D4σ) diameters, e.g. FWHM or 1/e² clip widths of a beam that is not Gaussian, or moments cut short by a small integration area',
+	'a scale error in z or in the widths (pixel pitch, magnification of imaging optics, z unit): M² scales with d0·Θ'
+];
 
 export type CausticFit = PhysicalFit | UnphysicalFit;
 
@@ -102,7 +119,8 @@ function finiteOrNull(v: number): number | null {
  * (ISO 11146-1:2005, clause 9, from memory) and derive d0, z0, Θ, zR and M² with uncertainties.
  *
  * Units: z_m and d_m in m; wavelength_m in m. Planes must have finite z, d > 0, and at least three
- * different z. A hyperbola with c ≤ 0 or 4ac − b² ≤ 0 is returned as `physical: false` with the reason.
+ * different z. A hyperbola with c ≤ 0 or 4ac − b² ≤ 0 is returned as `physical: false` with the reason,
+ * and so is one whose M² lies below 1 by more than two standard uncertainties (with the likely causes).
  *
  * Worked example: a beam with d0 = 1 mm at z0 = 0.2 m, M² = 1.3, λ = 1064 nm has
  * Θ = 4·M²·λ/(π·d0) = 1.761 mrad and zR = d0/Θ = 0.5678 m; ten planes on that hyperbola give back
@@ -185,6 +203,26 @@ export function fitCaustic(points: readonly CausticPoint[], options: FitOptions 
 				}
 			: null;
 
+	// M² below 1 is not a real beam (ISO 11146-1:2005, clause 3, from memory). Within two standard
+	// uncertainties of 1 it is taken as noise and noted (within 1e-6, rounding: nothing said); further
+	// below, not physical.
+	let note: string | undefined;
+	if (m2 !== null && m2 < 1 - 1e-6) {
+		const u = uncertainty?.m2 ?? 0;
+		const fig = (v: number) => v.toFixed(3);
+		if (m2 < 1 - 2 * u) {
+			return {
+				...common,
+				physical: false,
+				reason: `the fitted M² = ${fig(m2)}${u ? ` ± ${fig(u)}` : ''} is below 1, which no real beam has (a Gaussian beam has M² = 1): likely causes — ${M2_BELOW_ONE_CAUSES.join('; ')}`,
+				likelyCauses: [...M2_BELOW_ONE_CAUSES],
+				figures: { d0_m: d0, z0_m: z0, fullDivergence_rad: theta, zR_m: zR, m2 },
+				figureUncertainty: uncertainty
+			};
+		}
+		note = `the fitted M² = ${fig(m2)} ± ${fig(u)} lies below 1 but within two standard uncertainties of it: consistent with a diffraction-limited beam`;
+	}
+
 	const residuals: FitResidual[] = [];
 	let rr = 0;
 	for (const p of points) {
@@ -203,6 +241,7 @@ export function fitCaustic(points: readonly CausticPoint[], options: FitOptions 
 		m2,
 		uncertainty,
 		residuals,
-		rmsRelativeResidual: Math.sqrt(rr / n)
+		rmsRelativeResidual: Math.sqrt(rr / n),
+		...(note ? { note } : {})
 	};
 }

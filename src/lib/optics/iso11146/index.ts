@@ -12,3 +12,4 @@ export * from './widths';
 export * from './toSource';
 export * from './synthetic';
 export { fitQuadratic, type QuadraticFit } from './lsq';
+export * from './knifeEdge';

@@ -6,8 +6,13 @@
  *
  *   1. fit a background plane to a border frame and subtract it (./background.ts);
  *   2. first guess from the pixels above 5 % of the peak and above 5σ of the noise;
- *   3. integrate the moments over a rectangle `areaFactor` (default 3) times the D4σ widths, centred
- *      on the centroid, and repeat until centroid and widths change by less than `tolerance`;
+ *   3. integrate the moments over a rectangle centred on the centroid and aligned with the principal
+ *      axes of the current moments, its sides `areaFactor` (default 3) times the D4σ widths along those
+ *      axes (ISO 11146-1:2005, clause 7, and ISO/TR 11146-3:2004, clause 3.4, from memory — the text
+ *      was not reachable: the integration area is a rectangle aligned with the principal axes, three
+ *      times the beam widths), and repeat until centroid and widths change by less than `tolerance`;
+ *      a pixel belongs to the area when its centre lies inside the rectangle; a round beam (principal
+ *      variances within 0.1 %) has no principal axes, and the image axes are used;
  *   4. refit the background plane to every pixel outside that rectangle and repeat step 3.
  *
  * Moments (sums over the integration area, E = background-subtracted value):
@@ -64,8 +69,10 @@ export interface BeamMoments {
 	/** Second moments in m² (σxy may be negative). */
 	sigma2_m2: { xx: number; yy: number; xy: number };
 	background: Background;
-	/** Final integration rectangle, pixels, inclusive. */
+	/** Bounding box of the final integration area, pixels, inclusive. */
 	area_px: { x0: number; y0: number; x1: number; y1: number };
+	/** The final integration area: a rectangle aligned with the principal axes (half-sides u along `angle_rad`, v across), pixels. */
+	area: { centre_px: { x: number; y: number }; halfSides_px: { u: number; v: number }; angle_rad: number };
 	iterations: number;
 	converged: boolean;
 	warnings: string[];
@@ -80,34 +87,37 @@ interface Sums {
 	xy: number;
 }
 
+/** Pixels to sum: rows y0..y1, each from column c0[r − y0] to c1[r − y0] (inclusive; empty when c1 < c0). */
+interface PixelRows {
+	y0: number;
+	y1: number;
+	c0: Int32Array;
+	c1: Int32Array;
+}
+
 /**
- * Moments over [x0, x1] × [y0, y1] (pixels, inclusive) of the background-subtracted image, about the
- * reference point (xr, yr) then shifted to the centroid. Values below `clip` are skipped.
- * One pass, no allocation: per row Σv, Σv·dx, Σv·dx², combined with dy afterwards.
+ * The one moment sum: Σv, Σv·x, Σv·y, Σv·x², Σv·y², Σv·x·y of the background-subtracted image over
+ * `rows`, every `step`-th row and column, about the reference point (xr, yr), then shifted to the
+ * centroid. Pixels below `cut` are skipped (−Infinity: none). One pass, no allocation: per row Σv,
+ * Σv·dx, Σv·dx², combined with dy afterwards.
  */
-function areaMoments(img: GreyImage, bg: Background, x0: number, x1: number, y0: number, y1: number, xr: number, yr: number, clip: number): Sums | null {
+function momentSums(img: GreyImage, bg: Background, rows: PixelRows, step: number, xr: number, yr: number, cut: number): Sums | null {
 	const { width: W, data } = img;
 	const sx = bg.slopeX_countsPerPx;
 	let m0 = 0, mx = 0, my = 0, mxx = 0, myy = 0, mxy = 0;
-	for (let r = y0; r <= y1; r++) {
-		// v = data − (offset + sx·(c − xc) + sy·(r − yc)) = data − base − sx·c
-		const base = bg.offset_counts + bg.slopeY_countsPerPx * (r - bg.yc_px) - sx * bg.xc_px;
+	for (let r = rows.y0; r <= rows.y1; r += step) {
+		const a = rows.c0[r - rows.y0];
+		const e = rows.c1[r - rows.y0];
+		if (e < a) continue;
+		// v = data − (offset + sx·(c − xc) + sy·(r − yc))
+		let b = bg.offset_counts + bg.slopeY_countsPerPx * (r - bg.yc_px) + sx * (a - bg.xc_px);
+		const bStep = step * sx;
 		const row = r * W;
 		let s0 = 0, s1 = 0, s2 = 0;
-		let dx = x0 - xr;
-		let b = base + sx * x0;
-		if (clip > 0) {
-			for (let i = row + x0, end = row + x1; i <= end; i++, dx++, b += sx) {
-				const v = data[i] - b;
-				if (v >= clip) {
-					s0 += v;
-					s1 += v * dx;
-					s2 += v * dx * dx;
-				}
-			}
-		} else {
-			for (let i = row + x0, end = row + x1; i <= end; i++, dx++, b += sx) {
-				const v = data[i] - b;
+		let dx = a - xr;
+		for (let i = row + a, end = row + e; i <= end; i += step, dx += step, b += bStep) {
+			const v = data[i] - b;
+			if (v >= cut) {
 				s0 += v;
 				s1 += v * dx;
 				s2 += v * dx * dx;
@@ -127,6 +137,87 @@ function areaMoments(img: GreyImage, bg: Background, x0: number, x1: number, y0:
 	return { p: m0, cx: xr + ux, cy: yr + uy, xx: mxx / m0 - ux * ux, yy: myy / m0 - uy * uy, xy: mxy / m0 - ux * uy };
 }
 
+/** Every pixel of the image. */
+function wholeFrame(W: number, H: number): PixelRows {
+	return { y0: 0, y1: H - 1, c0: new Int32Array(H), c1: new Int32Array(H).fill(W - 1) };
+}
+
+/** Azimuth of the principal axis nearest x and the variances along both principal axes. */
+function principal(xx: number, yy: number, xy: number): { phi: number; s1: number; s2: number } {
+	let phi: number;
+	if (xx === yy) phi = xy === 0 ? 0 : Math.sign(xy) * (Math.PI / 4);
+	else phi = 0.5 * Math.atan((2 * xy) / (xx - yy));
+	const c = Math.cos(phi);
+	const sn = Math.sin(phi);
+	return { phi, s1: xx * c * c + 2 * xy * sn * c + yy * sn * sn, s2: xx * sn * sn - 2 * xy * sn * c + yy * c * c };
+}
+
+/** The integration area: a rectangle centred on (cx, cy), half-sides hu along azimuth phi and hv across it, pixels. */
+export interface IntegrationArea {
+	cx: number;
+	cy: number;
+	hu: number;
+	hv: number;
+	phi: number;
+}
+
+/**
+ * Rows and column ranges of the pixels whose centres lie inside the area (cut to the image), and
+ * whether the image edge cut it. For a row at dy from the centre, |dx·cosφ + dy·sinφ| ≤ hu and
+ * |−dx·sinφ + dy·cosφ| ≤ hv give one interval of dx.
+ */
+function areaPixels(area: IntegrationArea, W: number, H: number): { rows: PixelRows; clipped: boolean; width: number } {
+	const { cx, cy, hu, hv, phi } = area;
+	const c = Math.cos(phi);
+	const sn = Math.sin(phi);
+	const ey = Math.abs(hu * sn) + Math.abs(hv * c);
+	const ex = Math.abs(hu * c) + Math.abs(hv * sn);
+	const ry0 = Math.ceil(cy - ey - 1e-9);
+	const ry1 = Math.floor(cy + ey + 1e-9);
+	const clipped = ry0 < 0 || ry1 > H - 1 || Math.ceil(cx - ex - 1e-9) < 0 || Math.floor(cx + ex + 1e-9) > W - 1;
+	const y0 = Math.max(0, ry0);
+	const y1 = Math.min(H - 1, ry1);
+	const n = Math.max(0, y1 - y0 + 1);
+	const c0 = new Int32Array(n);
+	const c1 = new Int32Array(n);
+	let width = 0;
+	// a·dx + b ∈ [−h, h] → dx interval (a = 0: everything or nothing).
+	const band = (a: number, b: number, h: number): [number, number] => {
+		if (Math.abs(a) < 1e-12) return Math.abs(b) <= h ? [-Infinity, Infinity] : [Infinity, -Infinity];
+		const p = (-h - b) / a;
+		const q = (h - b) / a;
+		return p < q ? [p, q] : [q, p];
+	};
+	for (let r = y0; r <= y1; r++) {
+		const dy = r - cy;
+		const [l1, h1] = band(c, dy * sn, hu);
+		const [l2, h2] = band(-sn, dy * c, hv);
+		const lo = Math.ceil(cx + Math.max(l1, l2) - 1e-9);
+		const hi = Math.floor(cx + Math.min(h1, h2) + 1e-9);
+		c0[r - y0] = Math.max(0, lo);
+		c1[r - y0] = Math.min(W - 1, hi);
+		width = Math.max(width, c1[r - y0] - c0[r - y0] + 1);
+	}
+	return { rows: { y0, y1, c0, c1 }, clipped, width };
+}
+
+const samePixels = (a: PixelRows, b: PixelRows) => {
+	if (a.y0 !== b.y0 || a.y1 !== b.y1) return false;
+	for (let i = 0; i < a.c0.length; i++) if (a.c0[i] !== b.c0[i] || a.c1[i] !== b.c1[i]) return false;
+	return true;
+};
+
+/** Bounding box (inclusive) of a pixel set. */
+function boundingBox(rows: PixelRows): { x0: number; y0: number; x1: number; y1: number } {
+	let x0 = Infinity, x1 = -Infinity;
+	for (let i = 0; i < rows.c0.length; i++) {
+		if (rows.c1[i] < rows.c0[i]) continue;
+		x0 = Math.min(x0, rows.c0[i]);
+		x1 = Math.max(x1, rows.c1[i]);
+	}
+	return { x0, y0: rows.y0, x1, y1: rows.y1 };
+}
+
 /**
  * First guess: moments of the pixels above max(5 % of peak, 5σ noise) over the whole frame. Only a
  * starting point for the iteration, so large images are read on every second row and column.
@@ -135,11 +226,10 @@ function firstGuess(img: GreyImage, bg: Background): Sums | null {
 	const { width: W, height: H, data } = img;
 	const st = W * H >= 1 << 20 ? 2 : 1;
 	const sx = bg.slopeX_countsPerPx;
-	const rowBase = (r: number) => bg.offset_counts + bg.slopeY_countsPerPx * (r - bg.yc_px) - sx * bg.xc_px;
 	let peak = -Infinity;
 	for (let r = 0; r < H; r += st) {
 		const row = r * W;
-		let b = rowBase(r);
+		let b = bg.offset_counts + bg.slopeY_countsPerPx * (r - bg.yc_px) - sx * bg.xc_px;
 		for (let c = 0; c < W; c += st, b += st * sx) {
 			const v = data[row + c] - b;
 			if (v > peak) peak = v;
@@ -147,67 +237,54 @@ function firstGuess(img: GreyImage, bg: Background): Sums | null {
 	}
 	const cut = Math.max(0.05 * peak, 5 * bg.noise_counts);
 	if (!(peak > 0) || !(peak > 5 * bg.noise_counts)) return null;
-	const xr = (W - 1) / 2, yr = (H - 1) / 2;
-	let m0 = 0, mx = 0, my = 0, mxx = 0, myy = 0, mxy = 0;
-	for (let r = 0; r < H; r += st) {
-		const row = r * W;
-		let b = rowBase(r);
-		let s0 = 0, s1 = 0, s2 = 0;
-		for (let c = 0; c < W; c += st, b += st * sx) {
-			const v = data[row + c] - b;
-			if (v >= cut) {
-				const dx = c - xr;
-				s0 += v;
-				s1 += v * dx;
-				s2 += v * dx * dx;
-			}
-		}
-		const dy = r - yr;
-		m0 += s0;
-		mx += s1;
-		my += s0 * dy;
-		mxx += s2;
-		myy += s0 * dy * dy;
-		mxy += s1 * dy;
-	}
-	if (!(m0 > 0)) return null;
-	const ux = mx / m0, uy = my / m0;
-	return { p: m0, cx: xr + ux, cy: yr + uy, xx: mxx / m0 - ux * ux, yy: myy / m0 - uy * uy, xy: mxy / m0 - ux * uy };
+	return momentSums(img, bg, wholeFrame(W, H), st, (W - 1) / 2, (H - 1) / 2, cut);
 }
 
 interface AreaRun {
 	s: Sums;
-	area: { x0: number; y0: number; x1: number; y1: number };
+	area: IntegrationArea;
+	rows: PixelRows;
 	iterations: number;
 	converged: boolean;
 	clipped: boolean;
 }
 
-const sameArea = (a: AreaRun['area'], b: AreaRun['area']) => a.x0 === b.x0 && a.x1 === b.x1 && a.y0 === b.y0 && a.y1 === b.y1;
+/** Relative difference of the principal variances below which a beam counts as round for the area. */
+const ROUND = 1e-3;
 
-/** Iterate the integration rectangle (factor × the D4σ widths about the centroid) until it settles. */
+/**
+ * Iterate the integration area — a rectangle aligned with the principal axes of the current moments,
+ * sides `factor` × the D4σ widths along them, centred on the centroid — until it settles.
+ */
 function iterateArea(img: GreyImage, bg: Background, start: Sums, factor: number, clip: number, tol: number, maxIt: number): AreaRun {
 	const { width: W, height: H } = img;
+	const cut = clip > 0 ? clip : -Infinity;
 	let s = start;
-	let area = { x0: 0, y0: 0, x1: W - 1, y1: H - 1 };
-	let before: typeof area | null = null;
+	let area: IntegrationArea = { cx: (W - 1) / 2, cy: (H - 1) / 2, hu: W / 2, hv: H / 2, phi: 0 };
+	let rows = wholeFrame(W, H);
+	let before: PixelRows | null = null;
 	let clipped = false;
 	let it = 0;
+	const areaOf = (m: Sums): IntegrationArea => {
+		const pr = principal(m.xx, m.yy, m.xy);
+		// A round beam has no principal axes (its azimuth is noise): then the image axes are used.
+		if (Math.abs(pr.s1 - pr.s2) <= ROUND * (pr.s1 + pr.s2)) return { cx: m.cx, cy: m.cy, hu: 2 * factor * Math.sqrt(m.xx), hv: 2 * factor * Math.sqrt(m.yy), phi: 0 };
+		return { cx: m.cx, cy: m.cy, hu: 2 * factor * Math.sqrt(Math.max(0, pr.s1)), hv: 2 * factor * Math.sqrt(Math.max(0, pr.s2)), phi: pr.phi };
+	};
 	while (it < maxIt) {
 		it++;
-		const hx = 0.5 * factor * 4 * Math.sqrt(s.xx);
-		const hy = 0.5 * factor * 4 * Math.sqrt(s.yy);
-		const ax0 = Math.round(s.cx - hx), ax1 = Math.round(s.cx + hx), ay0 = Math.round(s.cy - hy), ay1 = Math.round(s.cy + hy);
-		const next = { x0: Math.max(0, ax0), x1: Math.min(W - 1, ax1), y0: Math.max(0, ay0), y1: Math.min(H - 1, ay1) };
-		if (next.x1 - next.x0 < 2 || next.y1 - next.y0 < 2) break;
-		// The area is a whole-pixel rectangle: the same rectangle again (or the one before, a two-step
-		// cycle that noise can cause) gives moments already computed, so the iteration has settled.
-		if (it > 1 && (sameArea(next, area) || (before && sameArea(next, before)))) return { s, area, iterations: it - 1, converged: true, clipped };
-		before = area;
-		const m = areaMoments(img, bg, next.x0, next.x1, next.y0, next.y1, s.cx, s.cy, clip);
+		const nextArea = areaOf(s);
+		const next = areaPixels(nextArea, W, H);
+		if (next.rows.y1 - next.rows.y0 < 2 || next.width < 3) break;
+		// The area is a set of whole pixels: the same set again (or the one before, a two-step cycle that
+		// noise can cause) gives moments already computed, so the iteration has settled.
+		if (it > 1 && (samePixels(next.rows, rows) || (before && samePixels(next.rows, before)))) return { s, area, rows, iterations: it - 1, converged: true, clipped };
+		const m = momentSums(img, bg, next.rows, 1, s.cx, s.cy, cut);
 		if (!m || !(m.xx > 0) || !(m.yy > 0)) break;
-		area = next;
-		clipped = next.x0 !== ax0 || next.x1 !== ax1 || next.y0 !== ay0 || next.y1 !== ay1;
+		before = rows;
+		rows = next.rows;
+		area = nextArea;
+		clipped = next.clipped;
 		const d = 4 * Math.sqrt(Math.max(m.xx, m.yy));
 		const change = Math.max(
 			Math.abs(Math.sqrt(m.xx) - Math.sqrt(s.xx)) / Math.sqrt(m.xx),
@@ -215,9 +292,9 @@ function iterateArea(img: GreyImage, bg: Background, start: Sums, factor: number
 			Math.hypot(m.cx - s.cx, m.cy - s.cy) / d
 		);
 		s = m;
-		if (change < tol) return { s, area, iterations: it, converged: true, clipped };
+		if (change < tol) return { s, area, rows, iterations: it, converged: true, clipped };
 	}
-	return { s, area, iterations: it, converged: false, clipped };
+	return { s, area, rows, iterations: it, converged: false, clipped };
 }
 
 /**
@@ -254,16 +331,16 @@ export function beamMoments(img: GreyImage, options: MomentsOptions): BeamMoment
 	}
 	let run = iterateArea(img, bg, first, factor, clipSigma * bg.noise_counts, tol, maxIt);
 	let iterations = run.iterations;
-	// Refine the background from every pixel outside the integration area, then settle the area again
-	// (a second refit changed widths by < 0.01 % in trials, so one is done).
-	const a = run.area;
+	// Refine the background from every pixel outside the integration area (its bounding box), then
+	// settle the area again (a second refit changed widths by < 0.01 % in trials, so one is done).
+	const a = boundingBox(run.rows);
 	if (W * H - (a.x1 - a.x0 + 1) * (a.y1 - a.y0 + 1) >= 100) {
 		bg = estimateBackground(img, { outside: a }, bg);
 		run = iterateArea(img, bg, run.s, factor, clipSigma * bg.noise_counts, tol, maxIt);
 		iterations += run.iterations;
 	}
 	const { s, converged, clipped } = run;
-	const { x0, y0, x1, y1 } = run.area;
+	const { x0, y0, x1, y1 } = boundingBox(run.rows);
 	if (!(s.xx > 0 && s.yy > 0) || s.xx * s.yy - s.xy * s.xy <= 0) {
 		throw new RangeError('beam must span more than one pixel in x and in y — its second moments are degenerate');
 	}
@@ -277,18 +354,13 @@ export function beamMoments(img: GreyImage, options: MomentsOptions): BeamMoment
 	if (4 * Math.sqrt(Math.min(s.xx, s.yy)) < 10) warnings.push('the beam is less than 10 pixels wide: pixel size limits the accuracy of the widths');
 	if (img.maxValue !== undefined) {
 		let sat = 0;
-		for (let r = y0; r <= y1; r++) for (let c = x0, i = r * W + x0; c <= x1; c++, i++) if (img.data[i] >= img.maxValue) sat++;
+		const rows = run.rows;
+		for (let r = rows.y0; r <= rows.y1; r++) for (let c = rows.c0[r - rows.y0], i = r * W + c; c <= rows.c1[r - rows.y0]; c++, i++) if (img.data[i] >= img.maxValue) sat++;
 		if (sat > 0) warnings.push(`${sat} pixel${sat === 1 ? ' is' : 's are'} at the top of the camera's range (saturated): the widths are too large`);
 	}
 
 	const { xx, yy, xy } = s;
-	let phi: number;
-	if (xx === yy) phi = xy === 0 ? 0 : Math.sign(xy) * (Math.PI / 4);
-	else phi = 0.5 * Math.atan((2 * xy) / (xx - yy));
-	const c = Math.cos(phi);
-	const sn = Math.sin(phi);
-	const s1 = xx * c * c + 2 * xy * sn * c + yy * sn * sn;
-	const s2 = xx * sn * sn - 2 * xy * sn * c + yy * c * c;
+	const { phi, s1, s2 } = principal(xx, yy, xy);
 	const d1 = 4 * Math.sqrt(Math.max(0, s1)) * pitch;
 	const d2 = 4 * Math.sqrt(Math.max(0, s2)) * pitch;
 	const ellipticity = Math.min(d1, d2) / Math.max(d1, d2);
@@ -306,6 +378,7 @@ export function beamMoments(img: GreyImage, options: MomentsOptions): BeamMoment
 		sigma2_m2: { xx: xx * pitch * pitch, yy: yy * pitch * pitch, xy: xy * pitch * pitch },
 		background: bg,
 		area_px: { x0, y0, x1, y1 },
+		area: { centre_px: { x: run.area.cx, y: run.area.cy }, halfSides_px: { u: run.area.hu, v: run.area.hv }, angle_rad: run.area.phi },
 		iterations,
 		converged,
 		warnings

@@ -110,8 +110,13 @@ export function checkPlan(z_m: readonly number[], waist: { z0_m: number; zR_m: n
 	const need = zoneNeed(n);
 	if (near < need) findings.push(`${near} plane${near === 1 ? '' : 's'} within one Rayleigh length of the waist (${fmt(z0 - zR)} to ${fmt(z0 + zR)} m); about half are needed`);
 	if (far < need) findings.push(`${far} plane${far === 1 ? '' : 's'} beyond two Rayleigh lengths (z ≤ ${fmt(z0 - 2 * zR)} m or z ≥ ${fmt(z0 + 2 * zR)} m); about half are needed`);
-	const zMin = Math.min(...z_m);
-	const zMax = Math.max(...z_m);
+	// A loop, not Math.min(...z_m): spreading ~10⁵ values overflows the call stack.
+	let zMin = Infinity;
+	let zMax = -Infinity;
+	for (const z of z_m) {
+		if (z < zMin) zMin = z;
+		if (z > zMax) zMax = z;
+	}
 	if (n > 0 && (z0 < zMin || z0 > zMax)) findings.push(`the fitted waist (${fmt(z0)} m) lies outside the measured range ${fmt(zMin)} to ${fmt(zMax)} m, so it is extrapolated`);
 
 	const add: PlanSuggestion[] = [];

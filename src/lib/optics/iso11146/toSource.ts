@@ -24,7 +24,7 @@ function axisOf(result: WidthsResult, name: 'd' | 'x' | 'y', wavelength_m: numbe
 	if (!r) throw new RangeError(`fit result must have a ${name} axis — it has ${Object.keys(result.axes).join(', ')}`);
 	if (!r.fit.physical) throw new RangeError(`the ${name} fit must be physical to become a source — ${r.fit.reason}`);
 	const fit = r.fit as PhysicalFit;
-	// M² = π·n·d0·Θ/(4λ0): ISO 11146-1:2005, clause 9 for n = 1; the medium index as in DESIGN.md's q convention.
+	// M² = π·n·d0·Θ/(4λ0): ISO 11146-1:2005, clause 9 for n = 1; the medium index as in the q convention of DEVELOPERS.md.
 	let m2 = (Math.PI * index * fit.d0_m * fit.fullDivergence_rad) / (4 * wavelength_m);
 	const u = fit.m2 !== null && fit.uncertainty?.m2 != null && fit.m2 > 0 ? (fit.uncertainty.m2 * m2) / fit.m2 : 0;
 	if (m2 < 1) {

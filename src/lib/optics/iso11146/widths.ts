@@ -56,7 +56,7 @@ export function fitWidths(planes: readonly MeasuredPlane[], columns: 'd' | 'xy',
 
 /**
  * Planes for the fit from analysed images at known z: d_m = [d_x, d_y] along the image axes
- * (ISO 11146-1 fits a simple astigmatic beam along fixed axes; DESIGN.md keeps x and y independent).
+ * (ISO 11146-1 fits a simple astigmatic beam along fixed axes; DEVELOPERS.md: x and y independent).
  * Returns the planes and cautions: a clearly elliptical beam whose axes are turned more than 10° from
  * the image axes does not fit that model (rotate the camera, or the beam is generally astigmatic).
  * Example: images at z = 0.1 and 0.2 m with widths 400/380 µm and 520/500 µm →

@@ -2,6 +2,19 @@
  * The objective of the matching search: plain-number q propagation through thin lenses on a rail in
  * air, then the mode overlap with the target (overlap.ts) and the clear-aperture transmission
  * (aperture.ts). 1/q̂′ = 1/q̂ − 1/f at a thin lens, q̂ += d in free space (Kogelnik & Li 1966, eq. 26).
+ *
+ * Convention (the project's): for M² > 1 the beam is described by its embedded Gaussian, whose q is the
+ * beam's q (1/q = 1/R − i·M²λ/(π·w²) = 1/R − i·λ/(π·(w/M)²)). The coupling figure is the TEM00 overlap of
+ * that embedded Gaussian with the target (overlap.ts with M² = 1). Free space and thin lenses act on both
+ * beams with the same unitary paraxial propagator, so this figure is the same at every plane. Apertures
+ * clip the real beam (radius w = M·w_embedded).
+ *
+ * Beside it the search reports the expected power in the fundamental mode: a partially coherent beam
+ * modelled as a Gaussian Schell-model source has Hermite–Gauss coherent modes (those of the embedded
+ * Gaussian) with geometric weights (1 − κ)·κⁿ, and M² = (1 + κ)/(1 − κ) per axis, so the fraction of the
+ * power in the fundamental mode is 1 − κ = 2/(1 + M²) per axis (F. Gori, "Collett–Wolf sources and
+ * multimode lasers", Opt. Commun. 34, 301 (1980); the M² relation written from memory). The fundamental
+ * mode's power coupled into the target is that fraction × the embedded-Gaussian coupling.
  */
 import type { QHat } from '../beam';
 import { axisCoupling } from '../overlap';
@@ -50,9 +63,17 @@ export function evaluate(input: InputBeam, target: TargetMode, f_m: ArrayLike<nu
 		prev = z_m[i];
 	}
 	const d = target.z_m - prev;
-	const x = axisCoupling({ q: { re: qx.re + d, im: qx.im }, m2: input.x.m2 }, { q: target.x }, lam);
-	const y = axisCoupling({ q: { re: qy.re + d, im: qy.im }, m2: input.y.m2 }, { q: target.y }, lam);
+	const x = axisCoupling({ q: { re: qx.re + d, im: qx.im } }, { q: target.x }, lam);
+	const y = axisCoupling({ q: { re: qy.re + d, im: qy.im } }, { q: target.y }, lam);
 	return { x, y, transmitted, total: x * y * transmitted };
+}
+
+/**
+ * Fraction of a Gaussian Schell-model beam's power in its fundamental coherent mode, one axis:
+ * 2/(1 + M²) (Gori 1980, see the header). M² = 1 → 1; M² = 1.5 → 0.8; M² = 3 → 0.5.
+ */
+export function fundamentalFraction(m2: number): number {
+	return 2 / (1 + m2);
 }
 
 /**
@@ -60,11 +81,11 @@ export function evaluate(input: InputBeam, target: TargetMode, f_m: ArrayLike<nu
  * estimate with the larger of the two radii (never optimistic); one axis is computed when the input and
  * target are round. `describe` re-evaluates the chosen solutions with `evaluate`.
  */
-export function makeScorer(input: InputBeam, target: TargetMode, f_m: number[], diameters_m: (number | null)[]): (z: number[]) => number {
+export function makeScorer(input: InputBeam, target: TargetMode, f_m: ArrayLike<number>, diameters_m: ArrayLike<number | null>): (z: ArrayLike<number>) => number {
 	const lam = input.wavelength_m;
 	const n = f_m.length;
-	const invF = f_m.map((f) => 1 / f);
-	const a2 = diameters_m.map((d) => (d === null ? Infinity : (d / 2) ** 2));
+	const invF = Array.from(f_m, (f) => 1 / f);
+	const a2 = Array.from(diameters_m, (d) => (d === null ? Infinity : (d / 2) ** 2));
 	const round = input.x.q.re === input.y.q.re && input.x.q.im === input.y.q.im && input.x.m2 === input.y.m2 && target.x.re === target.y.re && target.x.im === target.y.im;
 	const s = Math.PI / lam;
 	const tA = (t: QHat): [number, number] => {
@@ -74,7 +95,7 @@ export function makeScorer(input: InputBeam, target: TargetMode, f_m: number[], 
 	const [txr, txi] = tA(target.x);
 	const [tyr, tyi] = tA(target.y);
 	const zt = target.z_m;
-	const axis = (re: number, im: number, m2: number, ar: number, ai: number, z: number[], wmax2: Float64Array) => {
+	const axis = (re: number, im: number, m2: number, ar: number, ai: number, z: ArrayLike<number>, wmax2: Float64Array) => {
 		let prev = 0;
 		for (let i = 0; i < n; i++) {
 			re += z[i] - prev;
@@ -90,14 +111,14 @@ export function makeScorer(input: InputBeam, target: TargetMode, f_m: number[], 
 		}
 		re += zt - prev;
 		const den = re * re + im * im;
-		const a1r = (s * im) / den / m2;
+		const a1r = (s * im) / den; // embedded Gaussian: no M² here (see the header)
 		const a1i = (s * re) / den;
 		const Ar = a1r + ar;
 		const Ai = a1i - ai;
 		return (2 * Math.sqrt(a1r * ar)) / Math.sqrt(Ar * Ar + Ai * Ai);
 	};
 	const wmax2 = new Float64Array(n);
-	return (z: number[]) => {
+	return (z: ArrayLike<number>) => {
 		wmax2.fill(0);
 		const ex = axis(input.x.q.re, input.x.q.im, input.x.m2, txr, txi, z, wmax2);
 		const eta = round ? ex * ex : ex * axis(input.y.q.re, input.y.q.im, input.y.m2, tyr, tyi, z, wmax2);

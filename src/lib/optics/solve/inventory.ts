@@ -4,31 +4,14 @@
  *   f_mm      — focal length in millimetres (negative for a diverging lens)
  *   dia_mm    — clear diameter in millimetres (empty: not limiting)
  *   qty       — how many are on the shelf (empty: 1)
- * Lines starting with # are comments. Errors name the line and the column.
+ * Lines starting with # are comments. Errors name the line and the column. Read by the app's one CSV
+ * reader (src/lib/io/csv.ts): with semicolon or tab separators a decimal comma is accepted.
  */
 import type { StockLens } from './types';
+import { csvCell, numberCell, readCsv, unescapeCell } from '../../io/csv';
 
-function cells(line: string): string[] {
-	const out: string[] = [];
-	let cur = '';
-	let quoted = false;
-	for (let i = 0; i < line.length; i++) {
-		const ch = line[i];
-		if (quoted) {
-			if (ch === '"' && line[i + 1] === '"') {
-				cur += '"';
-				i++;
-			} else if (ch === '"') quoted = false;
-			else cur += ch;
-		} else if (ch === '"') quoted = true;
-		else if (ch === ',') {
-			out.push(cur.trim());
-			cur = '';
-		} else cur += ch;
-	}
-	out.push(cur.trim());
-	return out;
-}
+/** Most lenses one list may hold (lines); a longer list is refused before it is read. */
+export const MAX_LENS_ROWS = 2000;
 
 /**
  * Read a lens CSV. On failure `message` is the first problem (with a count of the others) and
@@ -36,25 +19,27 @@ function cells(line: string): string[] {
  */
 export function parseLensCsv(text: string): { ok: true; lenses: StockLens[] } | { ok: false; message: string; messages: string[] } {
 	const fail = (messages: string[]) => ({ ok: false as const, message: messages[0] + (messages.length > 1 ? ` (and ${messages.length - 1} more line${messages.length > 2 ? 's' : ''})` : ''), messages });
-	const lines = text.split(/\r?\n/).map((l, i) => ({ l, n: i + 1 })).filter(({ l }) => l.trim() !== '' && !l.trim().startsWith('#'));
-	if (lines.length === 0) return fail(['lens list: empty — expected a header "lens,f_mm,dia_mm,qty" and one line per lens']);
-	const head = cells(lines[0].l).map((h) => h.toLowerCase());
+	const read = readCsv(text, { what: 'lens list', maxRecords: MAX_LENS_ROWS });
+	if (!read.ok) return fail([read.message]);
+	const { records, decimalComma } = read;
+	if (records.length === 0) return fail(['lens list: empty — expected a header "lens,f_mm,dia_mm,qty" and one line per lens']);
+	const head = records[0].cells.map((h) => unescapeCell(h).trim().toLowerCase());
 	const col = (name: string) => head.indexOf(name);
-	if (col('f_mm') < 0) return fail([`lens list line ${lines[0].n}: the header needs a "f_mm" column (columns: lens, f_mm, dia_mm, qty)`]);
+	if (col('f_mm') < 0) return fail([`lens list line ${records[0].line}: the header needs a "f_mm" column (columns: lens, f_mm, dia_mm, qty)`]);
 	const lenses: StockLens[] = [];
 	const messages: string[] = [];
-	for (const { l, n } of lines.slice(1)) {
-		const c = cells(l);
-		const get = (name: string) => (col(name) >= 0 ? (c[col(name)] ?? '') : '');
+	const num = (t: string) => numberCell(t, decimalComma) ?? NaN;
+	for (const { cells: c, line: n } of records.slice(1)) {
+		const get = (name: string) => (col(name) >= 0 ? unescapeCell(c[col(name)] ?? '').trim() : '');
 		const fText = get('f_mm');
-		const f = fText === '' ? NaN : Number(fText);
+		const f = fText === '' ? NaN : num(fText);
 		const lineErrors: string[] = [];
 		if (!Number.isFinite(f) || f === 0 || Math.abs(f) > 1e5) lineErrors.push(`f_mm must be a non-zero number of millimetres up to ±100000 — got "${fText}"`);
 		const dText = get('dia_mm');
-		const d = dText === '' ? null : Number(dText);
+		const d = dText === '' ? null : num(dText);
 		if (d !== null && !(Number.isFinite(d) && d > 0 && d <= 1000)) lineErrors.push(`dia_mm must be > 0 and ≤ 1000 mm or empty — got "${dText}"`);
 		const qText = get('qty');
-		const q = qText === '' ? 1 : Number(qText);
+		const q = qText === '' ? 1 : num(qText);
 		if (!(Number.isInteger(q) && q >= 0 && q <= 1000)) lineErrors.push(`qty must be a whole number from 0 to 1000 — got "${qText}"`);
 		if (lineErrors.length) {
 			messages.push(`lens list line ${n}: ${lineErrors.join('; ')}`);
@@ -68,8 +53,7 @@ export function parseLensCsv(text: string): { ok: true; lenses: StockLens[] } | 
 }
 
 export function lensCsv(lenses: StockLens[]): string {
-	const q = (s: string) => (/[",]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s);
-	return ['lens,f_mm,dia_mm,qty', ...lenses.map((l) => `${q(l.label)},${+(l.f_m * 1000).toPrecision(10)},${l.diameter_m === null ? '' : +(l.diameter_m * 1000).toPrecision(10)},${l.count}`)].join('\n') + '\n';
+	return ['lens,f_mm,dia_mm,qty', ...lenses.map((l) => [csvCell(l.label), csvCell(l.f_m * 1000, 10), l.diameter_m === null ? '' : csvCell(l.diameter_m * 1000, 10), csvCell(l.count)].join(','))].join('\n') + '\n';
 }
 
 /**

@@ -52,6 +52,19 @@ export interface LensPlacement {
 	positionLoss: number;
 	/** Efficiency lost for ±1 % of this lens's focal length, the worse side. */
 	focalLoss: number;
+	/** Smallest shift of this lens alone (either way) that costs 1 % of the efficiency (relative), m. */
+	shiftFor1pct_m: number;
+}
+
+/** Misalignment of the target (e.g. a fibre face) that alone costs 1 % of the efficiency (relative). */
+export interface TargetTolerance {
+	/** Lateral offset, m (the tighter axis). */
+	offset_m: number;
+	/** Tilt, rad (the tighter axis). */
+	tilt_rad: number;
+	/** Axial shift of the target plane, m (the tighter side and axis), and the same in Rayleigh ranges of the target mode. */
+	axial_m: number;
+	axial_zR: number;
 }
 
 export interface MatchSolution {
@@ -61,8 +74,14 @@ export interface MatchSolution {
 	couplingY: number;
 	/** Fraction passing the lens clear apertures. */
 	transmitted: number;
-	/** couplingX·couplingY·transmitted. */
+	/** couplingX·couplingY·transmitted: the embedded-Gaussian coupling (the figure that ranks and places). */
 	efficiency: number;
+	/** Fraction of the input power in its fundamental mode, 2/(1+M²x)·2/(1+M²y) (Gaussian Schell model; 1 for M² = 1). */
+	fundamentalFraction: number;
+	/** Expected power coupled from the fundamental mode into the target: efficiency × fundamentalFraction. */
+	fundamentalModePower: number;
+	/** Target misalignments that each cost 1 % (relative). */
+	targetTolerance: TargetTolerance;
 	/** Sum of all position and focal losses: the smaller, the more forgiving the setup. */
 	sensitivity: number;
 	/** First lens to target plane, m. */

@@ -4,7 +4,7 @@
  * refused with the reason.
  */
 import { caution } from '../cautions';
-import type { Edition, FactorKey, FactorReport, FactorValues, LimitCandidate, LimitInput, LimitResult, LimitRow, Target } from './types';
+import type { Edition, FactorKey, FactorReport, FactorValues, LimitCandidate, LimitInput, LimitResult, LimitRow, Provenance, Target } from './types';
 
 export const wavelengthRange_nm = [180, 1e6] as const;
 export const durationRange_s = [1e-13, 3e4] as const;
@@ -87,15 +87,27 @@ function candidateOf(r: LimitRow, lambda_nm: number, t_s: number, f: FactorValue
 		irradiance_W_m2: H / t_s,
 		expression: r.expression,
 		condition: r.condition,
-		source: r.source
+		source: r.source,
+		provenance: r.provenance
 	};
+}
+
+/**
+ * Where a figure comes from, in one line: the IEC edition's label when it has one, else whether the
+ * limiting row and aperture were read from the published text or recalled.
+ */
+export function provenanceLineOf(edition: Edition, provenance: Provenance): string {
+	if (edition.provenanceLabel) return `${edition.short}: ${edition.provenanceLabel}.`;
+	return provenance === 'published-text'
+		? `${edition.short}: limit and aperture read from the published text of the table row named.`
+		: `${edition.short}: this row or its aperture is recalled (from memory), not read from a reachable published text — the reason is given with the row.`;
 }
 
 /**
  * Evaluate an edition's exposure limit.
  * Returns the stricter of the applicable rows (thermal and photochemical where both apply), the
  * limiting aperture, the factors with their ICNIRP and IEC names, and the caution.
- * Example: EU 2006/25, eye, 532 nm, 0.25 s → H = 18·0.25^0.75 = 6.364 J/m², E = 25.46 W/m², 7 mm.
+ * Example: EU 2006/25, eye, 532 nm, 0.25 s → H = 18·0.25^0.75 = 6.364 J/m², E = 25.46 W/m², 7 mm (Table 2.2, read).
  */
 export function evaluateEdition(edition: Edition, input: LimitInput): LimitResult {
 	const { lambda_nm, t_s, target, alpha_mrad } = checkLimitInput(input);
@@ -117,6 +129,8 @@ export function evaluateEdition(edition: Edition, input: LimitInput): LimitResul
 		allFactors.push(rep);
 		if (used.has(k)) factors.push(rep);
 	}
+	const ap = edition.apertureSourceAt(target, lambda_nm, t_s);
+	const provenance: Provenance = row.provenance === 'recalled' || ap.provenance === 'recalled' || edition.provenanceLabel ? 'recalled' : 'published-text';
 	return {
 		standardId: edition.id,
 		standard: edition.title,
@@ -134,6 +148,9 @@ export function evaluateEdition(edition: Edition, input: LimitInput): LimitResul
 		factors,
 		allFactors,
 		notes: edition.notes,
+		provenance,
+		limitSource: `${row.source}. Limiting aperture: ${ap.source}`,
+		provenanceLine: provenanceLineOf(edition, provenance),
 		caution
 	};
 }

@@ -16,14 +16,12 @@
  * limits only.
  */
 import { sci } from './sci';
-import type { Edition, FactorValues, LimitRow, Target } from './types';
+import { BOTH, EYE, SKIN, extendedAfterT2, extendedUpToT2, farIrBands, farIrRows, limitingAperture_m, pointSource, row as sharedRow, type ApertureRule, type RowSpec } from './shared';
+import { recalledIecLabel, type Edition, type FactorValues, type LimitRow } from './types';
 
 const A1 = 'IEC 60825-1:2014 Annex A, MPE table for the eye';
 const SK = 'IEC 60825-1:2014 Annex A, MPE table for the skin';
 const MEM = ' (from memory)';
-const EYE: readonly Target[] = ['eye'];
-const SKIN: readonly Target[] = ['skin'];
-const BOTH: readonly Target[] = ['eye', 'skin'];
 
 /** α_max of the 2014 edition (ICNIRP 2013), mrad. */
 export function iecAlphaMax_mrad(t_s: number): number {
@@ -49,11 +47,8 @@ export function iecFactors(lambda_nm: number, t_s: number, alpha_mrad: number): 
 	return { CA, CB, CC, CE, T1_s, T2_s, gamma_mrad, alphaMin_mrad: alphaMin, alphaMax_mrad: alphaMax, alpha_mrad: a, C1: 5.6e3 * t_s ** 0.25, C2 };
 }
 
-type RowSpec = Omit<LimitRow, 'uses'> & { uses?: LimitRow['uses'] };
-const row = (r: RowSpec): LimitRow => ({ uses: [], ...r });
-const pointSource = ({ f }: { f: FactorValues }) => f.alpha_mrad <= f.alphaMin_mrad;
-const extendedUpToT2 = ({ f, t_s }: { f: FactorValues; t_s: number }) => f.alpha_mrad > f.alphaMin_mrad && t_s <= f.T2_s;
-const extendedAfterT2 = ({ f, t_s }: { f: FactorValues; t_s: number }) => f.alpha_mrad > f.alphaMin_mrad && t_s > f.T2_s;
+/** Every row of this edition is recalled (the standard's tables were not reachable as text). */
+const row = (r: Omit<RowSpec, 'provenance'>): LimitRow => sharedRow({ ...r, provenance: 'recalled' });
 
 const uvRows: LimitRow[] = [
 	row({ id: 'uv-ultrashort', targets: BOTH, wavelength_nm: [180, 400], duration_s: [1e-13, 1e-9], mechanism: 'thermal', kind: 'irradiance',
@@ -115,27 +110,10 @@ const longRetinalRows: LimitRow[] = [
 		source: `${A1}, 700–1400 nm, T2–3·10⁴ s, α > α_min${MEM}` })
 ];
 
-const irBands: Array<{ band: readonly [number, number]; E0: number; H: number; tEnd: number }> = [
-	{ band: [1400, 1500], E0: 1e12, H: 1e3, tEnd: 1e-3 },
-	{ band: [1500, 1800], E0: 1e13, H: 1e4, tEnd: 10 },
-	{ band: [1800, 2600], E0: 1e12, H: 1e3, tEnd: 1e-3 },
-	{ band: [2600, 1e6], E0: 1e11, H: 100, tEnd: 1e-7 }
-];
-
-const irRows: LimitRow[] = irBands.flatMap(({ band, E0, H, tEnd }) => {
-	const b = band[1] === 1e6 ? '2600 nm–1 mm' : `${band[0]}–${band[1]} nm`;
-	const rows: LimitRow[] = [
-		row({ id: `ir-${band[0]}-ultrashort`, targets: BOTH, wavelength_nm: band, duration_s: [1e-13, 1e-9], mechanism: 'thermal', kind: 'irradiance',
-			expression: `E = ${sci(E0)} W/m²`, value: () => E0, source: `${A1} and ${SK}, ${b}, 10⁻¹³–10⁻⁹ s${MEM}` }),
-		row({ id: `ir-${band[0]}-constant`, targets: BOTH, wavelength_nm: band, duration_s: [1e-9, tEnd], mechanism: 'thermal', kind: 'radiantExposure',
-			expression: `H = ${H} J/m²`, value: () => H, source: `${A1}, ${b}, 10⁻⁹–${sci(tEnd)} s; skin as eye${MEM}` })
-	];
-	if (tEnd < 10)
-		rows.push(row({ id: `ir-${band[0]}-t025`, targets: BOTH, wavelength_nm: band, duration_s: [tEnd, 10], mechanism: 'thermal', kind: 'radiantExposure', uses: ['C1'],
-			expression: 'H = C1 = 5.6·10³·t^0.25 J/m²', value: ({ t_s }) => 5.6e3 * t_s ** 0.25, source: `${A1}, ${b}, ${sci(tEnd)}–10 s; skin as eye${MEM}` }));
-	rows.push(row({ id: `ir-${band[0]}-long`, targets: BOTH, wavelength_nm: band, duration_s: [10, 3e4], mechanism: 'thermal', kind: 'irradiance',
-		expression: 'E = 1000 W/m²', value: () => 1000, source: `${A1} and ${SK}, ${b}, 10–3·10⁴ s${MEM}` }));
-	return rows;
+const irRows = farIrRows(farIrBands, (b, part, label) => {
+	const cols = { ultrashort: '10⁻¹³–10⁻⁹ s', constant: `10⁻⁹–${sci(b.tEnd_s)} s`, t025: `${sci(b.tEnd_s)}–10 s`, long: '10–3·10⁴ s' }[part];
+	const table = part === 'ultrashort' || part === 'long' ? `${A1} and ${SK}` : `${A1}; skin as eye`;
+	return { provenance: 'recalled', source: `${table}, ${label}, ${cols}${MEM}` };
 });
 
 const skinRows: LimitRow[] = [
@@ -149,15 +127,8 @@ const skinRows: LimitRow[] = [
 		expression: 'E = 2·10³·C4 W/m²', value: ({ f }) => 2e3 * f.CA, source: `${SK}, 400–1400 nm, 10–3·10⁴ s${MEM}` })
 ];
 
-/** Limiting aperture (Annex A aperture table), m. */
-function iecAperture_m(target: Target, lambda_nm: number, t_s: number): number {
-	if (lambda_nm >= 1e5) return 11e-3;
-	if (target === 'skin') return 3.5e-3;
-	if (lambda_nm >= 400 && lambda_nm < 1400) return 7e-3;
-	if (t_s < 0.35) return 1e-3;
-	if (t_s < 10) return 1.5e-3 * t_s ** 0.375;
-	return 3.5e-3;
-}
+/** Limiting apertures (Annex A aperture table), numbers only; the rule is shared. From memory. */
+export const iecApertureRule: ApertureRule = { skin_m: 3.5e-3, retina_m: 7e-3, farIr_m: 11e-3, smallUntil_s: 0.35, smallInclusive: false, long_m: 3.5e-3 };
 
 /** T_i, the time within which pulses count as one for C5 (retinal thermal only), s. */
 function iecGroupingTime_s(lambda_nm: number): number {
@@ -172,9 +143,11 @@ export const iec608251_2014: Edition = {
 	short: 'IEC 60825-1:2014',
 	rows: [...uvRows, ...retinalRows, ...longRetinalRows, ...irRows, ...skinRows],
 	factors: iecFactors,
-	aperture_m: iecAperture_m,
+	aperture_m: (target, lambda_nm, t_s) => limitingAperture_m(iecApertureRule, target, lambda_nm, t_s),
 	apertureSource: `IEC 60825-1:2014 Annex A, limiting apertures: eye 7 mm (400–1400 nm); 1 mm for t < 0.35 s, 1.5·t^0.375 mm for 0.35–10 s, 3.5 mm from 10 s (180–400 nm and 1400 nm–0.1 mm); 11 mm (0.1–1 mm); skin 3.5 mm${MEM}`,
+	apertureSourceAt: () => ({ provenance: 'recalled', source: `IEC 60825-1:2014 Annex A, limiting apertures${MEM}` }),
 	groupingTime_s: iecGroupingTime_s,
+	groupingNote: () => null,
 	groupingSource: `IEC 60825-1:2014, T_i: 5 µs (400–1050 nm), 13 µs (1050–1400 nm)${MEM}`,
 	cpApplies: (target, lambda_nm, mechanism) => target === 'eye' && mechanism === 'thermal' && lambda_nm >= 400 && lambda_nm < 1400,
 	cpSource: `IEC 60825-1:2014 / ICNIRP 2013: C5 = N^−0.25 applies to retinal thermal limits only (400–1400 nm); pulses within T_i count as one${MEM}`,
@@ -184,5 +157,6 @@ export const iec608251_2014: Edition = {
 		'For α > α_max the edition compares only the irradiance within α_max; here C6 = α_max/α_min is applied to the whole irradiance given, which is stricter.',
 		"The edition's further qualifications of C5 (caps on N, small sources) are not modelled: C5 = N^−0.25 as given, which is stricter.",
 		'Skin, 400–1400 nm, below 1 ns: taken as 2·10¹¹ W/m² without C_A, the stricter reading of a value recalled from memory.'
-	]
+	],
+	provenanceLabel: recalledIecLabel
 };

@@ -13,6 +13,11 @@ export type Target = 'eye' | 'skin';
 export type Mechanism = 'thermal' | 'photochemical';
 /** How the table states the limit: as a radiant exposure H (J/m²) or an irradiance E (W/m²). */
 export type UnitKind = 'radiantExposure' | 'irradiance';
+/** Whether a limit was read from a reachable published text or recalled (not verified against the text). */
+export type Provenance = 'published-text' | 'recalled';
+
+/** The label every IEC 60825-1:2014 result carries (its tables were not reachable as text). */
+export const recalledIecLabel = 'values recalled (ICNIRP 2013), not verified against the standard';
 
 /** Correction factors and break times of an edition at one (λ, t, α). Angles in mrad as tabulated. */
 export interface FactorValues {
@@ -63,8 +68,9 @@ export interface LimitRow {
 	value: (c: RowContext) => number;
 	/** Factors the expression uses, reported with the result. */
 	uses: readonly FactorKey[];
-	/** Where the row comes from: table, row, column; "(from memory)" where recalled rather than read. */
+	/** Where the row comes from: table, row, column and the text it was read from; "(from memory)" with the reason where recalled. */
 	source: string;
+	provenance: Provenance;
 }
 
 /** A factor as reported: its ICNIRP/Directive name, the IEC name, value and meaning. */
@@ -86,8 +92,10 @@ export interface Edition {
 	factors: (lambda_nm: number, t_s: number, alpha_mrad: number) => FactorValues;
 	/** Limiting aperture diameter, m. */
 	aperture_m: (target: Target, lambda_nm: number, t_s: number) => number;
-	/** Where the aperture rule comes from. */
+	/** Where the aperture rule comes from (all cases, one text). */
 	apertureSource: string;
+	/** Where the aperture used at (target, λ, t) comes from, read or recalled. */
+	apertureSourceAt: (target: Target, lambda_nm: number, t_s: number) => { source: string; provenance: Provenance };
 	/** Pulse-grouping time (Directive T_min, IEC T_i), s; NaN where the edition lists none. */
 	groupingTime_s: (lambda_nm: number) => number;
 	groupingSource: string;
@@ -96,6 +104,10 @@ export interface Edition {
 	cpSource: string;
 	/** Notes that travel with results (values from memory, simplifications). */
 	notes: readonly string[];
+	/** A label every result of this edition carries (e.g. that its values are recalled); null when none. */
+	provenanceLabel: string | null;
+	/** Extra basis of the grouping time at this wavelength (where the text is ambiguous), else null. */
+	groupingNote: (lambda_nm: number) => string | null;
 }
 
 export interface LimitInput {
@@ -116,6 +128,7 @@ export interface LimitCandidate {
 	expression: string;
 	condition?: string;
 	source: string;
+	provenance: Provenance;
 }
 
 export interface LimitResult {
@@ -141,5 +154,11 @@ export interface LimitResult {
 	/** Every factor and break time of the edition defined at this case (for display). */
 	allFactors: FactorReport[];
 	notes: readonly string[];
+	/** Read from the published text, or recalled: of the limiting row (and of the edition's aperture). */
+	provenance: Provenance;
+	/** Table + row + the source text of the limiting row, and of the limiting aperture. */
+	limitSource: string;
+	/** One line saying where the figure comes from, shown wherever the figure is shown. */
+	provenanceLine: string;
 	caution: string;
 }

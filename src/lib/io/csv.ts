@@ -1,0 +1,180 @@
+/**
+ * The one CSV reader and writer of the app and the CLI (lab inventory, lens shelf, width table, image
+ * matrices, exports). Reading goes through papaparse (RFC 4180 quoting); this module adds what every
+ * caller needs the same way:
+ *
+ * - Separator: taken from the first line that is neither blank nor a `#` comment — tab if it has a
+ *   tab, else semicolon if it has one, else comma, except that a line of blank-separated values whose
+ *   commas sit inside numbers ("0 1080,4") is read as blank-separated.
+ * - Decimal comma: accepted in number cells exactly when the separator is not a comma (semicolon,
+ *   tab or blanks). With a comma separator, "1,5" in a quoted cell is refused as ambiguous.
+ * - Line numbers: every record carries the 1-based line it starts on, so messages can name it.
+ * - Quotes: an unterminated or misplaced quote stops the reading with the line where the record
+ *   starts — nothing after it is read silently as one giant cell (and nothing is dropped quietly).
+ * - Size: a file with more than `maxRecords` lines is refused before it is parsed.
+ *
+ * Writing: `csvCell` quotes where RFC 4180 needs it and escapes cells that a spreadsheet would run
+ * as a formula (starting with = + - @, tab or CR; OWASP "CSV Injection" guidance) by a leading
+ * apostrophe; plain numbers such as "-50" are left as they are. `unescapeCell` undoes the apostrophe
+ * on import, so an exported table reads back to the same text.
+ */
+import Papa from 'papaparse';
+
+export type Separator = ',' | ';' | '\t' | ' ';
+
+export interface CsvRecord {
+	/** 1-based line where the record starts. */
+	line: number;
+	/** 1-based line where it ends (later than `line` when a quoted cell holds a line break). */
+	lineEnd?: number;
+	cells: string[];
+}
+
+export type CsvRead =
+	| { ok: true; records: CsvRecord[]; separator: Separator; decimalComma: boolean }
+	| { ok: false; line: number; message: string; tooLong?: boolean };
+
+export interface CsvOptions {
+	/** Refuse files with more lines than this (default 1,000,000). */
+	maxRecords?: number;
+	/** What the file is, for messages ("lab inventory", "lens list"). */
+	what?: string;
+	/** Keep `#` comment lines (default false: they are skipped). */
+	keepComments?: boolean;
+}
+
+export const DEFAULT_MAX_RECORDS = 1_000_000;
+
+function countLines(s: string, limit: number): number {
+	let n = 1;
+	for (let i = s.indexOf('\n'); i >= 0; i = s.indexOf('\n', i + 1)) if (++n > limit) return n;
+	return n;
+}
+
+/** The separator of a (first) line, by the rule in the module comment. */
+export function detectSeparator(line: string): Separator {
+	if (line.includes('\t')) return '\t';
+	if (line.includes(';')) return ';';
+	if (!line.includes(',')) return /\S\s+\S/.test(line.trim()) ? ' ' : ',';
+	const tokens = line.trim().split(/\s+/);
+	if (tokens.length >= 2 && tokens.every((t) => !t.startsWith(',') && !t.endsWith(',') && !t.includes('"'))) {
+		// Blank-separated values whose commas are inside the values: decimal commas.
+		if (tokens.every((t) => /^[-+]?\d*,?\d*([eE][-+]?\d+)?$/.test(t) || !t.includes(','))) return ' ';
+	}
+	return ',';
+}
+
+/**
+ * Read CSV text. Blank records and (unless `keepComments`) lines whose first cell starts with `#` are
+ * skipped; a leading byte-order mark is dropped. Never throws.
+ */
+export function readCsv(text: string, options: CsvOptions = {}): CsvRead {
+	const what = options.what ?? 'file';
+	const max = options.maxRecords ?? DEFAULT_MAX_RECORDS;
+	// One line-end convention for the whole file (files mixing CRLF and LF are common after edits).
+	const s = text.replace(/^\uFEFF/, '').replace(/\r\n?/g, '\n');
+	const lines = countLines(s, max + 1);
+	if (lines > max) return { ok: false, line: max + 1, tooLong: true, message: `${what}: more than ${max.toLocaleString('en')} lines — the limit is ${max.toLocaleString('en')}; split the file` };
+	// First meaningful line decides the separator.
+	let firstLine = '';
+	for (const l of s.split(/\r\n|\r|\n/, 10_000)) {
+		const t = l.trim();
+		if (t !== '' && !t.startsWith('#')) {
+			firstLine = l;
+			break;
+		}
+	}
+	const separator = detectSeparator(firstLine);
+	const decimalComma = separator !== ',';
+	const records: CsvRecord[] = [];
+	if (separator === ' ') {
+		const ls = s.split(/\r\n|\r|\n/);
+		for (let i = 0; i < ls.length; i++) {
+			const t = ls[i].trim();
+			if (t === '' || (!options.keepComments && t.startsWith('#'))) continue;
+			records.push({ line: i + 1, cells: t.split(/\s+/) });
+		}
+		return { ok: true, records, separator, decimalComma };
+	}
+	let line = 1;
+	let at = 0;
+	let failure: { line: number; message: string } | null = null;
+	Papa.parse<string[]>(s, {
+		delimiter: separator,
+		newline: '\n',
+		quoteChar: '"',
+		skipEmptyLines: false,
+		step: (r, parser) => {
+			const start = line;
+			const end = r.meta.cursor;
+			for (let i = s.indexOf('\n', at); i >= 0 && i < end; i = s.indexOf('\n', i + 1)) line++;
+			at = end;
+			if (r.errors.length) {
+				const e = r.errors[0];
+				failure = {
+					line: start,
+					message:
+						e.code === 'MissingQuotes'
+							? `${what} line ${start}: a quote opens a cell that is never closed — the rest of the file would be read as one cell, so nothing was imported; close the quote (a quote inside a cell is written "")`
+							: `${what} line ${start}: a quote is misplaced (${e.message}) — nothing was imported; quote whole cells and write a quote inside a cell as ""`
+				};
+				parser.abort();
+				return;
+			}
+			const cells = r.data;
+			if (cells.length === 1 && cells[0].trim() === '') return;
+			if (cells.every((c) => c.trim() === '')) return;
+			if (!options.keepComments && cells[0].trimStart().startsWith('#')) return;
+			const lineEnd = Math.max(start, s[end - 1] === '\n' ? line - 1 : line);
+			records.push(lineEnd > start ? { line: start, lineEnd, cells } : { line: start, cells });
+		}
+	});
+	if (failure) return { ok: false, ...(failure as { line: number; message: string }) };
+	return { ok: true, records, separator, decimalComma };
+}
+
+const plainNumber = /^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/;
+
+/**
+ * A number cell as a number, or null when it is not one. With `decimalComma`, one comma stands for
+ * the decimal point ("1080,4" → 1080.4); a point and a comma together are refused as ambiguous.
+ */
+export function numberCell(text: string, decimalComma: boolean): number | null {
+	let t = unescapeCell(text).trim();
+	if (t.includes(',')) {
+		if (!decimalComma || t.includes('.') || t.indexOf(',') !== t.lastIndexOf(',')) return null;
+		t = t.replace(',', '.');
+	}
+	return plainNumber.test(t) ? Number(t) : null;
+}
+
+/** A quantity cell ("2,83 mm") with a decimal comma turned into a point when the separator allows it. */
+export function quantityCell(text: string, decimalComma: boolean): string {
+	const t = unescapeCell(text).trim();
+	return decimalComma ? t.replace(/^([-+]?\d*),(\d)/, '$1.$2') : t;
+}
+
+/** Undo the export's formula escape: "'=x" → "=x" (only before = + - @, tab or CR). */
+export function unescapeCell(text: string): string {
+	return /^'[=+\-@\t\r]/.test(text) ? text.slice(1) : text;
+}
+
+/** Does a spreadsheet read this cell as a formula? (OWASP CSV Injection: = + - @ tab CR.) */
+export function needsFormulaEscape(text: string): boolean {
+	return /^[=+\-@\t\r]/.test(text) && !plainNumber.test(text);
+}
+
+/**
+ * One CSV cell for export: numbers with up to 6 significant digits (non-finite → empty), formula-like
+ * text escaped with a leading apostrophe, quoted where it holds a separator, quote or line break.
+ */
+export function csvCell(v: string | number | null | undefined, digits = 6): string {
+	let s = typeof v === 'number' ? (Number.isFinite(v) ? String(+v.toPrecision(digits)) : '') : (v ?? '');
+	if (needsFormulaEscape(s)) s = "'" + s;
+	return /[",;\n\r\t]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+}
+
+/** Rows of cells → CSV text (comma separator, LF line ends, trailing newline). */
+export function toCsv(rows: ReadonlyArray<ReadonlyArray<string | number | null | undefined>>): string {
+	return rows.map((r) => r.map((c) => csvCell(c)).join(',')).join('\n') + '\n';
+}

@@ -1,0 +1,135 @@
+import { test, expect, type Page, type Download } from '@playwright/test';
+import { readFileSync } from 'node:fs';
+import Papa from 'papaparse';
+
+/** Read a downloaded CSV: the commented header lines and the rows (first row = column names). */
+async function readCsv(d: Download) {
+	const text = readFileSync((await d.path())!, 'utf8');
+	const header = text.split(/\r?\n/).filter((l) => l.startsWith('#'));
+	const rows = Papa.parse<string[]>(text, { comments: '#', skipEmptyLines: true }).data;
+	return { text, header, cols: rows[0], rows: rows.slice(1) };
+}
+
+/** "125.6 µm" / "1.163 m" / "37.27 mm" → metres. */
+function metres(s: string): number {
+	const m = s.trim().replace('−', '-').match(/^(-?[\d.]+)\s*(µm|mm|m|km|nm)$/);
+	if (!m) throw new Error(`not a length: "${s}"`);
+	return Number(m[1]) * { nm: 1e-9, µm: 1e-6, mm: 1e-3, m: 1, km: 1e3 }[m[2] as 'm'];
+}
+/** Page values are shown to 4 significant digits. */
+const close4 = (a: number, b: number) => expect(Math.abs(a - b) / Math.abs(b)).toBeLessThan(6e-4);
+
+async function download(page: Page, testid: string) {
+	const d = page.waitForEvent('download');
+	await page.getByTestId(testid).click();
+	return d;
+}
+
+test.beforeEach(async ({ page }) => {
+	await page.goto('/');
+	await page.evaluate(() => localStorage.clear());
+	await page.goto('/');
+	await expect(page.getByTestId('caustic-plot')).toBeVisible();
+});
+
+test('the beam along the train as CSV agrees with the read-out cursor', async ({ page }) => {
+	await page.getByTestId('beam-step').fill('100');
+	const csv = await readCsv(await download(page, 'beam-csv'));
+	expect(csv.cols).toEqual(['z_mm', 'w_x_mm', 'w_y_mm', 'R_x_m', 'R_y_m', 'gouy_x_deg', 'gouy_y_deg']);
+	expect(csv.header.join('\n')).toMatch(/Setup: Demo lab/);
+	expect(csv.header.join('\n')).toMatch(/w_x_mm: x beam radius w \(1\/e²/);
+	expect(csv.rows.map((r) => Number(r[0]))).toEqual([0, 100, 200, 300, 400, 500, 600, 700, 800, 900, 1000, 1100, 1200, 1300, 1400]);
+	// Put the cursor at z = 700 mm by typing a bare number (read in mm) and compare with the file's row.
+	await page.getByTestId('cursor-z').fill('700');
+	const row = csv.rows.find((r) => r[0] === '700')!;
+	const x = page.getByTestId('readout-x');
+	const y = page.getByTestId('readout-y');
+	await expect.poll(async () => Number(await page.getByTestId('cursor-knob').getAttribute('aria-valuenow'))).toBeCloseTo(0.7, 12);
+	close4(metres(await x.locator('[data-col=w]').innerText()), Number(row[1]) / 1000);
+	close4(metres(await y.locator('[data-col=w]').innerText()), Number(row[2]) / 1000);
+	close4(metres(await x.locator('[data-col=d]').innerText()), (2 * Number(row[1])) / 1000);
+	close4(metres(await x.locator('[data-col=R]').innerText()), Number(row[3]));
+	close4(parseFloat((await x.locator('[data-col=gouy]').innerText()).replace('−', '-')), Number(row[5]));
+});
+
+test('waist and element tables export as CSV with the numbers shown', async ({ page }) => {
+	const w = await readCsv(await download(page, 'waist-csv'));
+	expect(w.cols).toEqual(['where', 'axis', 'z0_mm', 'w0_mm', 'd0_mm', 'zR_mm']);
+	const shown = await page.getByTestId('waist-table').locator('tbody tr').evaluateAll((trs) => trs.map((tr) => [...tr.querySelectorAll('td')].map((td) => td.textContent ?? '')));
+	expect(w.rows.length).toBe(shown.length);
+	w.rows.forEach((r, i) => {
+		expect(r[0]).toBe(shown[i][0]);
+		close4(Number(r[2]) / 1000, metres(shown[i][2]));
+		close4(Number(r[3]) / 1000, metres(shown[i][3]));
+		close4(Number(r[4]) / 1000, metres(shown[i][4]));
+		close4(Number(r[5]) / 1000, metres(shown[i][5]));
+	});
+	const e = await readCsv(await download(page, 'element-csv'));
+	expect(e.cols[0]).toBe('element');
+	const rows = await page.getByTestId('element-table').locator('tbody tr').evaluateAll((trs) => trs.map((tr) => [...tr.querySelectorAll('td')].map((td) => td.textContent ?? '')));
+	expect(e.rows.map((r) => r[0])).toEqual(rows.map((r) => r[0]));
+	e.rows.forEach((r, i) => {
+		close4(Number(r[1]) / 1000, metres(rows[i][1]));
+		close4(Number(r[2]) / 1000, metres(rows[i][2]));
+		close4(Number(r[3]) / 1000, metres(rows[i][3]));
+	});
+});
+
+test('the plot saves as SVG and PNG with its labels, the setup name and the date', async ({ page }) => {
+	const svgFile = await download(page, 'bench-plot-svg');
+	expect(svgFile.suggestedFilename()).toMatch(/\.beam-plot\.svg$/);
+	const svg = readFileSync((await svgFile.path())!, 'utf8');
+	expect(svg).toContain('Beam along the train — Demo lab, bench 2');
+	expect(svg).toMatch(/exported \d{4}-\d\d-\d\d \d\d:\d\d UTC/);
+	const waistLabel = (await page.getByTestId('waist-marker').first().locator('text').textContent())!.trim();
+	expect(svg).toContain(waistLabel);
+	for (const label of ['L1', 'L2', 'M1', 'M2', 'y: radius w (1/e²)', 'x: radius w (1/e²)']) expect(svg).toContain(label);
+	expect(svg).not.toMatch(/var\(--/); // styles are resolved, the file stands alone
+	const png = readFileSync((await (await download(page, 'bench-plot-png')).path())!);
+	expect([...png.subarray(0, 8)]).toEqual([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
+	const box = (await page.getByTestId('caustic-plot').locator('svg').first().boundingBox())!;
+	expect(png.readUInt32BE(16)).toBe(2 * Math.ceil(box.width)); // IHDR width at 2 px per CSS px
+});
+
+test('the glyph moves with the arrow keys; the cursor follows a drag and a typed z', async ({ page }) => {
+	const l2 = page.getByTestId('handle-L2');
+	await l2.focus();
+	for (let i = 0; i < 3; i++) await page.keyboard.press('ArrowRight');
+	await page.keyboard.press('Shift+ArrowLeft');
+	await expect(l2).toHaveAttribute('aria-valuenow', '0.293');
+	await expect(page.getByTestId('element-L2')).toContainText('293 mm');
+	// Drag the cursor knob to the right; the typed field follows.
+	const before = await page.getByTestId('cursor-z').inputValue();
+	const knob = (await page.getByTestId('cursor-knob').boundingBox())!;
+	await page.mouse.move(knob.x + knob.width / 2, knob.y + knob.height / 2);
+	await page.mouse.down();
+	await page.mouse.move(knob.x - 120, knob.y + knob.height / 2, { steps: 4 });
+	await page.mouse.up();
+	await expect(page.getByTestId('cursor-z')).not.toHaveValue(before);
+	expect(Number(await page.getByTestId('cursor-z').inputValue())).toBeLessThan(Number(before));
+	// A typed z with its own unit is read in that unit.
+	await page.getByTestId('cursor-z').fill('0.25 m');
+	await expect.poll(async () => Number(await page.getByTestId('cursor-knob').getAttribute('aria-valuenow'))).toBeCloseTo(0.25, 12);
+	await page.getByTestId('cursor-z').fill('12 parsecs');
+	await expect(page.locator('#ro-z-err')).toContainText('Read-out z');
+});
+
+test('a round beam is drawn once, above the axis, and says x = y; close elements do not overlap', async ({ page }) => {
+	await page.getByTestId('new').click();
+	await page.getByTestId('new-bench').click();
+	await page.getByTestId('add-element').click();
+	await page.getByTestId('add-element').click();
+	await expect(page.getByTestId('caustic-plot')).toContainText('x = y');
+	await expect(page.getByTestId('curve-y')).toHaveCount(0);
+	// Move L2 onto L1: their glyphs and labels must still not overlap.
+	await page.getByTestId('el-L2-at').fill('101 mm');
+	await expect(page.getByTestId('handle-L2')).toHaveAttribute('aria-valuenow', '0.101');
+	const a = (await page.getByTestId('handle-L1').locator('text').first().boundingBox())!;
+	const b = (await page.getByTestId('handle-L2').locator('text').first().boundingBox())!;
+	expect(a.x + a.width <= b.x || b.x + b.width <= a.x).toBe(true);
+});
+
+test('after Add element the new element\'s first field has the focus', async ({ page }) => {
+	await page.getByTestId('add-element').click();
+	await expect(page.locator('li.el.selected input').first()).toBeFocused();
+});
