@@ -22,9 +22,10 @@ test('(a) the bench follows every edit after a visit to each other workspace', a
 	await startWith(page, setupDoc({ lenses: [{ at: '100 mm', f: '200 mm' }], end: '2 m' }));
 	await expect(page.getByTestId('caustic-plot')).toBeVisible();
 	// One visit to each other workspace, then an edit on the bench that must show at once.
-	const steps: Array<{ visit: 'Match' | 'Measure' | 'Hazard'; f_mm: number; waist_mm: number }> = [
+	const steps: Array<{ visit: 'Match' | 'Measure' | 'Scan' | 'Hazard'; f_mm: number; waist_mm: number }> = [
 		{ visit: 'Match', f_mm: 50, waist_mm: 2 },
 		{ visit: 'Measure', f_mm: 80, waist_mm: 1 },
+		{ visit: 'Scan', f_mm: 120, waist_mm: 0.7 },
 		{ visit: 'Hazard', f_mm: 150, waist_mm: 0.3 }
 	];
 	for (const s of steps) {
