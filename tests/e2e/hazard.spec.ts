@@ -102,3 +102,18 @@ test('the beam can come from the Bench: distances are measured along the propaga
 	await expect(page.getByTestId('cautions')).toContainText(cautions[2]);
 	await expectNoBrokenNumbers(page);
 });
+
+test('further lines are combined per tissue; skin and eyewear per rule are shown; a bad line is refused with the form', async ({ page }) => {
+	await expect(page.getByTestId('hz-skin')).toContainText('Nominal skin hazard distance');
+	await expect(page.getByTestId('hz-eyewear-rules')).toContainText('sets the OD');
+	await page.getByTestId('hz-lines-input').fill('1064 nm: 50 mW, 10.6 um: 1 W');
+	await expect(page.getByTestId('hz-lines')).toBeVisible();
+	const combined = page.getByTestId('hz-lines-combined');
+	await expect(combined).toContainText('retina');
+	await expect(combined).toContainText('cornea and lens');
+	await expect(combined).toContainText('skin');
+	await page.getByTestId('hz-lines-input').fill('1064 nm 50 mW');
+	await expect(page.getByTestId('hz-lines-error')).toContainText('Further lines, entry 1 "1064 nm 50 mW": not WAVELENGTH: POWER');
+	await expect(page.getByTestId('hz-lines-input')).toHaveValue('1064 nm 50 mW');
+	await expectNoBrokenNumbers(page);
+});

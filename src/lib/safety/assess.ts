@@ -249,7 +249,7 @@ export function assessBeam(input: BeamAssessmentInput): BeamAssessment {
 	if (emission === 'continuous') {
 		const E = apertureAveragedIrradiance_W_m2(power_W, D, worstR.wx, worstR.wy);
 		const o = requiredOpticalDensity(E, mpe_W_m2);
-		byRule.push({ rule: `continuous: ${rule}`, exposure: E, limit: mpe_W_m2, unit: 'W/m²', limitingAperture_m: D, od: o.od, odWhole: o.odWhole });
+		byRule.push({ rule: 'continuous', exposure: E, limit: mpe_W_m2, unit: 'W/m²', limitingAperture_m: D, od: o.od, odWhole: o.odWhole });
 	} else {
 		const Q = positive(input.pulseEnergy_J, 'pulse energy', 'J');
 		perPulseWorst = apertureAveragedIrradiance_W_m2(Q, D, worstR.wx, worstR.wy);

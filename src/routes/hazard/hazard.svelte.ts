@@ -20,6 +20,7 @@ import {
 	type StandardChoice,
 	type ViewingCase
 } from '$lib/safety';
+import { assessFurtherLines } from './lines';
 import { readSafety, type SafetyDoc, type SafetyKey } from './safetyDoc';
 
 export const fieldSpecs = {
@@ -157,6 +158,12 @@ export class HazardState {
 			if (e instanceof RangeError) return { ok: false, message: e.message };
 			throw e;
 		}
+	});
+
+	/** Further lines combined with the main one (null when none are given). */
+	lines = $derived.by(() => {
+		void this.#store.unitsVersion;
+		return assessFurtherLines(this.s.extraLines, this.input, this.s.emission === 'cw', this.s.beamFrom === 'exit');
 	});
 
 	/** Exposure ÷ limit along the beam, ready for the plot. */

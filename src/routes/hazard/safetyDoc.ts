@@ -20,6 +20,8 @@ export const SafetySchema = v.object({
 	wavelength: text('514.5 nm'),
 	emission: v.optional(v.picklist(['cw', 'pulsed']), 'cw'),
 	power: text('5 W'),
+	/** Further continuous lines in the same beam, "WAVELENGTH: POWER, …"; empty: one line. Optional, so documents without it read as before. */
+	extraLines: text(''),
 	pulseEnergy: text('1 mJ'),
 	pulseWidth: text('10 ns'),
 	repRate: text(''),
