@@ -87,3 +87,20 @@ test('a beam image (CSV matrix) is analysed in the page and its widths join the 
 	await expect(page.getByTestId('table-summary')).toContainText('1 plane read');
 	await expectNoBrokenNumbers(page);
 });
+
+test('a fit with M² below 1 is flagged as not a real beam with the likely causes (ISO 11146-1, clause 3: M² ≥ 1)', async ({ page }) => {
+	const zR = (Math.PI * 0.42e-3 ** 2) / (4 * 0.8 * lam);
+	const lines = ['z,d'];
+	for (const k of [-0.9, -0.5, -0.1, 0.3, 0.8, -3, -2.4, 2.3, 2.9, 3.6]) {
+		const z = 0.3 + k * zR;
+		lines.push(`${(z * 1e3).toFixed(4)},${(caustic(0.42e-3, 0.3, 0.8, z) * 1e6).toFixed(4)}`);
+	}
+	await page.getByTestId('m-wavelength').fill('1064 nm');
+	await page.getByTestId('widths-input').fill(lines.join('\n'));
+	const alert = page.getByTestId('fit-d-unphysical');
+	await expect(alert).toContainText('M² below 1');
+	await expect(alert).toContainText('wavelength');
+	await expect(alert).toContainText('second-moment');
+	await expect(page.getByTestId('fit-d-m2')).toContainText('0.8');
+	await expectNoBrokenNumbers(page);
+});
