@@ -44,7 +44,7 @@ const RingSchema = v.object({
 });
 export type RingSection = v.InferOutput<typeof RingSchema>;
 
-/** The invented Larkspur St. lab's bow-tie ring: two flat and two 100 mm mirrors, all at 8°. */
+/** The invented Demo lab lab's bow-tie ring: two flat and two 100 mm mirrors, all at 8°. */
 export function defaultRing(): RingSection {
 	return {
 		type: 'ring',
@@ -105,19 +105,19 @@ export const MatchSectionSchema = v.object({
 export type MatchSection = v.InferOutput<typeof MatchSectionSchema>;
 export type InventoryRow = MatchSection['inventory'][number];
 
-/** The starting section: the invented Larkspur St. lab couples its rod laser into a reference cavity. */
+/** The starting section: the invented Demo lab lab couples its rod laser into a reference cavity. */
 export function defaultMatchSection(): MatchSection {
 	return {
 		input: { from: 'source' },
 		target: { kind: 'cavity', at: '900 mm', wx: '50 µm', wy: '', r1: 'flat', r2: '500 mm', length: '250 mm', lensF: '', lensAt: '', substrate: defaultSubstrate(), ring: defaultRing(), fiberBy: 'mfd', mfd: '6.2 µm', coreRadius: '3 µm', na: '0.13' },
 		inventory: stockToRows([
-			{ label: 'LS drawer A1 (−50)', f_m: -0.05, diameter_m: 0.0127, count: 2 },
-			{ label: 'LS drawer B2 (+50)', f_m: 0.05, diameter_m: 0.0254, count: 2 },
-			{ label: 'LS drawer B4 (+100)', f_m: 0.1, diameter_m: 0.0254, count: 3 },
-			{ label: 'LS drawer B6 (+150)', f_m: 0.15, diameter_m: 0.0254, count: 2 },
-			{ label: 'LS drawer C1 (+200)', f_m: 0.2, diameter_m: 0.0254, count: 2 },
-			{ label: 'LS drawer C3 (+300)', f_m: 0.3, diameter_m: 0.0254, count: 1 },
-			{ label: 'LS drawer C5 (+500)', f_m: 0.5, diameter_m: 0.0508, count: 1 }
+			{ label: 'Shelf lens A1 (−50)', f_m: -0.05, diameter_m: 0.0127, count: 2 },
+			{ label: 'Shelf lens B2 (+50)', f_m: 0.05, diameter_m: 0.0254, count: 2 },
+			{ label: 'Shelf lens B4 (+100)', f_m: 0.1, diameter_m: 0.0254, count: 3 },
+			{ label: 'Shelf lens B6 (+150)', f_m: 0.15, diameter_m: 0.0254, count: 2 },
+			{ label: 'Shelf lens C1 (+200)', f_m: 0.2, diameter_m: 0.0254, count: 2 },
+			{ label: 'Shelf lens C3 (+300)', f_m: 0.3, diameter_m: 0.0254, count: 1 },
+			{ label: 'Shelf lens C5 (+500)', f_m: 0.5, diameter_m: 0.0508, count: 1 }
 		]),
 		rail: { from: '50 mm', to: '850 mm' },
 		slots: [],
