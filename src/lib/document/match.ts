@@ -105,7 +105,7 @@ export const MatchSectionSchema = v.object({
 export type MatchSection = v.InferOutput<typeof MatchSectionSchema>;
 export type InventoryRow = MatchSection['inventory'][number];
 
-/** The starting section: the invented Demo lab lab couples its rod laser into a reference cavity. */
+/** The starting section: the invented Demo lab couples its rod laser into a reference cavity. */
 export function defaultMatchSection(): MatchSection {
 	return {
 		input: { from: 'source' },
