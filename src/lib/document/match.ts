@@ -44,7 +44,7 @@ const RingSchema = v.object({
 });
 export type RingSection = v.InferOutput<typeof RingSchema>;
 
-/** The invented Demo lab lab's bow-tie ring: two flat and two 100 mm mirrors, all at 8°. */
+/** The invented Demo lab's bow-tie ring: two flat and two 100 mm mirrors, all at 8°. */
 export function defaultRing(): RingSection {
 	return {
 		type: 'ring',
