@@ -209,3 +209,21 @@ test('Match: an expander goes on the bench with its spacing, and the expander ta
 	close4(metres(ex[0][1]), at_mm / 1000);
 	close4(metres(ex[1][1]), (at_mm + spacing_mm) / 1000);
 });
+
+test('Hazard: the exposure plot saves as SVG with the caution and the limit source under it', async ({ page }) => {
+	await page.goto('/hazard/');
+	await expect(page.getByTestId('hz-nohd-beam')).toBeVisible();
+	const nohd = (await page.getByTestId('hz-nohd-beam').innerText()).trim();
+	const svgFile = await download(page, 'hazard-plot-svg');
+	expect(svgFile.suggestedFilename()).toMatch(/\.exposure-plot\.svg$/);
+	const svg = readFileSync((await svgFile.path())!, 'utf8');
+	expect(svg).toContain('Exposure along the beam');
+	// The caution travels with every safety output (src/lib/safety/cautions.ts), in the file too.
+	expect(svg).toContain('First-pass estimate, not a hazard evaluation.');
+	expect(svg).toContain('laser safety officer decide');
+	expect(svg).not.toMatch(/NaN|Infinity|undefined|var\(--/);
+	// The plot marks the NOHD that the page shows.
+	const inPlot = /NOHD ([\d.]+) (m|km)/.exec(svg);
+	expect(inPlot).not.toBeNull();
+	close4(metres(`${inPlot![1]} ${inPlot![2]}`), metres(nohd.replace(/^beyond /, '')));
+});
