@@ -98,7 +98,8 @@ function exponent(ns: number[], ts: number[]): number {
 	return sxy / sxx;
 }
 
-// Goals as ratios to the reference loop. On an idle 2-core machine the loop takes about 20 ms, so 50× is
+// Goals as ratios to the reference loop. The loop takes about 20–26 ms of CPU on this 2-core machine (26 ms
+// measured while it was heavily loaded), so 50× is
 // the 1 s for three lenses over 100 types and 5× its 100 ms for two lenses over 50 types.
 const GOAL_THREE_100 = 50;
 const GOAL_TWO_50 = 5;

@@ -10,6 +10,7 @@ const pages = [
 	{ path: '/match/', ready: null },
 	{ path: '/measure/', ready: null },
 	{ path: '/hazard/', ready: null },
+	{ path: '/scan/', ready: null },
 	{ path: '/hazard-report/', ready: null }
 ];
 

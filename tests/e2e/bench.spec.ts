@@ -16,9 +16,9 @@ async function autosaved(page: Page, text: string) {
 	await expect.poll(() => page.evaluate(() => Object.values(localStorage).join('\n'))).toContain(text);
 }
 
+// Each test gets a fresh browser context (Playwright's default), so storage starts empty: one page load.
 test.beforeEach(async ({ page }) => {
-	await page.goto('/');
-	await page.evaluate(() => localStorage.clear());
+	expect(await page.context().storageState()).toEqual({ cookies: [], origins: [] });
 	await page.goto('/');
 	await expect(page.getByTestId('caustic-plot')).toBeVisible();
 });

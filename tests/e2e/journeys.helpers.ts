@@ -107,9 +107,9 @@ export async function startWith(page: Page, doc: object, path = '/') {
 }
 
 /** Navigate with the top bar, as a user does (client-side navigation, no reload). */
-export async function openWorkspace(page: Page, name: 'Bench' | 'Match' | 'Measure' | 'Hazard') {
+export async function openWorkspace(page: Page, name: 'Bench' | 'Match' | 'Measure' | 'Scan' | 'Hazard') {
 	await page.getByRole('navigation', { name: 'Workspaces' }).getByRole('link', { name, exact: true }).click();
-	const path = { Bench: /\/$/, Match: /\/match\/$/, Measure: /\/measure\/$/, Hazard: /\/hazard\/$/ }[name];
+	const path = { Bench: /\/$/, Match: /\/match\/$/, Measure: /\/measure\/$/, Scan: /\/scan\/$/, Hazard: /\/hazard\/$/ }[name];
 	await expect(page).toHaveURL(path);
 }
 

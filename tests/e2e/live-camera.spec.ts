@@ -17,10 +17,10 @@ import { writeBeamY4m, type BeamFrameSpec } from './support/y4m';
 
 const dir = mkdtempSync(join(tmpdir(), 'bw-cam-'));
 const video = join(dir, 'camera.y4m');
-const W = 640;
-const H = 480;
-const pitch_m = 5e-6;
-const base: BeamFrameSpec = { width: W, height: H, frames: 6, wa_px: 60, wb_px: 36, angle_rad: (20 * Math.PI) / 180, cx: 310, cy: 245, drift_px: 0.5, background: 40, peak: 170, noise: 1.5 };
+const W = 320;
+const H = 240;
+const pitch_m = 10e-6;
+const base: BeamFrameSpec = { width: W, height: H, frames: 6, wa_px: 30, wb_px: 18, angle_rad: (20 * Math.PI) / 180, cx: 155, cy: 122, drift_px: 0.3, background: 40, peak: 170, noise: 1.5 };
 writeBeamY4m(video, base);
 
 const debianChromium = '/usr/bin/chromium';
@@ -50,14 +50,16 @@ function metres(text: string): number {
 	return Number(m[1]) * { nm: 1e-9, µm: 1e-6, mm: 1e-3, m: 1 }[m[2] as 'nm' | 'µm' | 'mm' | 'm'];
 }
 
-async function openLive(page: Page) {
+async function openLive(page: Page, beam = true) {
 	await page.goto('/measure/');
 	await page.evaluate(() => localStorage.clear());
 	await page.goto('/measure/');
-	await page.getByTestId('pixel-pitch').fill('5 um');
+	await page.getByTestId('pixel-pitch').fill('10 um');
 	await page.getByTestId('live-open').click();
 	await page.getByTestId('live-start').click();
-	await expect(page.getByTestId('live-readout')).toBeVisible({ timeout: 30_000 });
+	if (beam) await expect(page.getByTestId('live-readout')).toBeVisible({ timeout: 30_000 });
+	// With the beam blocked there are no widths; the page says there is no beam to measure.
+	else await expect(page.getByTestId('live-warnings')).toContainText('must show a beam', { timeout: 30_000 });
 }
 
 /** Wait until the live d_x is within `tol` of `expected_m` (the new file is being read). */
@@ -104,7 +106,7 @@ test('guided caustic scan: dark frame, ten planes at typed z, ISO 11146 fit, fit
 	test.setTimeout(240_000);
 	// Dark frame: the beam blocked, only the sensor's offset and noise.
 	writeBeamY4m(video, { ...base, peak: 0, drift_px: 0, frames: 3 });
-	await openLive(page);
+	await openLive(page, false);
 	await page.getByTestId('m-wavelength').fill('1064 nm');
 	await page.getByTestId('live-dark').click();
 	await expect(page.getByTestId('live-status')).toContainText('Dark frame captured');
@@ -122,7 +124,7 @@ test('guided caustic scan: dark frame, ten planes at typed z, ISO 11146 fit, fit
 		const z = 0.1 + k * zR;
 		const dx = caustic(200e-6, 0.1, 1.2, z);
 		const dy = caustic(240e-6, 0.11, 1.4, z);
-		writeBeamY4m(video, { ...base, angle_rad: 0, drift_px: 0, frames: 3, wa_px: dx / 2 / pitch_m, wb_px: dy / 2 / pitch_m, cx: 320, cy: 240, seed: i + 2 });
+		writeBeamY4m(video, { ...base, angle_rad: 0, drift_px: 0, frames: 3, wa_px: dx / 2 / pitch_m, wb_px: dy / 2 / pitch_m, cx: 160, cy: 120, seed: i + 2 });
 		await page.getByTestId('live-start').click();
 		await waitForDx(page, dx, 0.02);
 		await page.getByTestId('live-z').fill(`${(z * 1e3).toFixed(3)} mm`);

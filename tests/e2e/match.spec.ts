@@ -188,3 +188,31 @@ test('a read-out that cannot compute says why instead of showing nothing', async
 	await page.getByTestId('target-at').fill('5 kg');
 	await expect(page.getByTestId('single-lens-why')).toContainText('not valid yet');
 });
+
+test('cavities on the stability boundary show the limit and why; the input mirror substrate moves the target outside', async ({ page }) => {
+	await page.getByTestId('target-cavity').check();
+	// Hemispherical: flat mirror 1, R2 = L = 500 mm: g1·g2 = 0 (Kogelnik & Li 1966, §V).
+	await page.getByTestId('target-length').fill('500 mm');
+	await expect(page.getByTestId('cavity-boundary')).toContainText('On the stability boundary');
+	await expect(page.getByTestId('cavity-readout')).toContainText('hemispherical');
+	await expect(page.getByTestId('cavity-limit')).toContainText('grows without bound');
+	await expect(page.getByTestId('match-run')).toBeDisabled();
+	await expectNoBrokenNumbers(page);
+	// Confocal: R1 = R2 = L: on the boundary, with the symmetric limit mode, which can be matched.
+	await page.getByTestId('target-r1').fill('500 mm');
+	await expect(page.getByTestId('cavity-boundary')).toContainText('On the stability boundary');
+	await expect(page.getByTestId('cavity-readout')).toContainText('confocal');
+	await expect(page.getByTestId('cavity-limit')).toContainText('µm');
+	await expect(page.getByTestId('match-run')).toBeEnabled();
+	// Back to a stable cavity with a curved input mirror, then give its substrate.
+	await page.getByTestId('target-r1').fill('1 m');
+	await page.getByTestId('target-length').fill('250 mm');
+	await expect(page.getByTestId('cavity-readout')).toContainText('Stable');
+	await expect(page.getByTestId('cavity-readout')).toContainText('substrate');
+	await page.getByTestId('target-sub-t').fill('6.35 mm');
+	await expect(page.getByTestId('substrate-note')).toContainText('back face');
+	await page.getByTestId('target-sub-n').fill('0.5');
+	await expect(page.getByText(/Substrate index/).first()).toBeVisible();
+	await expect(page.getByTestId('target-sub-n')).toHaveValue('0.5');
+	await expectNoBrokenNumbers(page);
+});

@@ -40,10 +40,15 @@ test('paste widths, see the fit with uncertainties and the flagged line, send th
 	await page.getByTestId('widths-input').fill(widthsText(['812.5,abc,400']));
 	await expect(page.getByTestId('flagged-rows')).toContainText('line 4');
 	await expect(page.getByTestId('flagged-rows')).toContainText('dx "abc" is not a number');
-	await expect(page.getByTestId('fit-x-m2')).toHaveText(/^1\.2 ± /);
-	await expect(page.getByTestId('fit-y-m2')).toHaveText(/^1\.5 ± /);
-	await expect(page.getByTestId('fit-x-d0_m')).toHaveText(/^420 ± [\d.×^−]+ µm$/);
-	await expect(page.getByTestId('fit-x-z0_m')).toHaveText(/^300 ± [\d.×^−]+ mm$/);
+	// Value ± uncertainty in one unit; the value before "±" is the caustic's (exact data, so tight).
+	const before = async (id: string) => Number((await page.getByTestId(id).innerText()).split('±')[0].trim());
+	await expect(page.getByTestId('fit-x-m2')).toHaveText(/^[\d.]+ ± <?[\d.×^−]+$/);
+	expect(Math.abs((await before('fit-x-m2')) - 1.2)).toBeLessThan(1e-3);
+	expect(Math.abs((await before('fit-y-m2')) - 1.5)).toBeLessThan(1e-3);
+	await expect(page.getByTestId('fit-x-d0_m')).toHaveText(/^[\d.]+ ± <?[\d.×^−]+ µm$/);
+	expect(Math.abs((await before('fit-x-d0_m')) - 420)).toBeLessThan(0.05);
+	await expect(page.getByTestId('fit-x-z0_m')).toHaveText(/^[\d.]+ ± <?[\d.×^−]+ mm$/);
+	expect(Math.abs((await before('fit-x-z0_m')) - 300)).toBeLessThan(0.05);
 	await expect(page.getByTestId('measure-plot')).toBeVisible();
 	await expect(page.getByTestId('point-x')).toHaveCount(10);
 	await expect(page.getByTestId('point-y')).toHaveCount(10);
@@ -86,4 +91,60 @@ test('a beam image (CSV matrix) is analysed in the page and its widths join the 
 	await expect(page.getByTestId('widths-input')).toHaveValue(/^z,dx,dy\n250,13[12][.\d]*,13[12][.\d]*\n$/);
 	await expect(page.getByTestId('table-summary')).toContainText('1 plane read');
 	await expectNoBrokenNumbers(page);
+});
+
+test('a fit with M² below 1 is flagged as not a real beam with the likely causes (ISO 11146-1, clause 3: M² ≥ 1)', async ({ page }) => {
+	const zR = (Math.PI * 0.42e-3 ** 2) / (4 * 0.8 * lam);
+	const lines = ['z,d'];
+	for (const k of [-0.9, -0.5, -0.1, 0.3, 0.8, -3, -2.4, 2.3, 2.9, 3.6]) {
+		const z = 0.3 + k * zR;
+		lines.push(`${(z * 1e3).toFixed(4)},${(caustic(0.42e-3, 0.3, 0.8, z) * 1e6).toFixed(4)}`);
+	}
+	await page.getByTestId('m-wavelength').fill('1064 nm');
+	await page.getByTestId('widths-input').fill(lines.join('\n'));
+	const alert = page.getByTestId('fit-d-unphysical');
+	await expect(alert).toContainText('M² below 1');
+	await expect(alert).toContainText('wavelength');
+	await expect(alert).toContainText('second-moment');
+	await expect(page.getByTestId('fit-d-m2')).toContainText('0.8');
+	await expectNoBrokenNumbers(page);
+});
+
+test('knife-edge scans: the fitted radius is shown and the widths join the table as a plane', async ({ page }) => {
+	// erf by Abramowitz & Stegun 1964, eq. 7.1.26 (|error| < 1.5e-7; from memory) — independent of the engine.
+	const erf = (x: number) => {
+		const t = 1 / (1 + 0.3275911 * Math.abs(x));
+		const y = 1 - ((((1.061405429 * t - 1.453152027) * t + 1.421413741) * t - 0.284496736) * t + 0.254829592) * t * Math.exp(-x * x);
+		return x < 0 ? -y : y;
+	};
+	// Power behind a blade at x for a Gaussian of 1/e² radius w: ½[1 + erf(√2 (x − c)/w)] (x in mm, P in mW).
+	const scan = (w: number, c: number) =>
+		['x (mm),P (mW)', ...Array.from({ length: 61 }, (_, i) => {
+			const x = -3 + (6 * i) / 60;
+			return `${x.toFixed(3)},${(0.05 + 4 * 0.5 * (1 + erf((Math.SQRT2 * (x - c)) / w))).toFixed(5)}`;
+		})].join('\n');
+	await page.getByTestId('knife-add').click();
+	await page.getByTestId('knife-add').click();
+	const cards = page.getByTestId('knife-card');
+	await cards.nth(0).getByTestId('knife-z').fill('100 mm');
+	await cards.nth(0).getByTestId('knife-text').fill(scan(0.8, 0.2));
+	await cards.nth(1).getByTestId('knife-axis').selectOption('y');
+	await cards.nth(1).getByTestId('knife-z').fill('100 mm');
+	await cards.nth(1).getByTestId('knife-text').fill(scan(0.6, -0.1));
+	// w = 0.8 mm → "800.0 ± … µm"; D4σ = 2w = 1.6 mm.
+	const lead = async (el: ReturnType<typeof page.getByTestId>) => Number((await el.innerText()).split('±')[0].trim());
+	await expect(cards.nth(0).getByTestId('knife-w')).toContainText('µm');
+	expect(Math.abs((await lead(cards.nth(0).getByTestId('knife-w'))) - 800)).toBeLessThan(1);
+	expect(Math.abs((await lead(cards.nth(0).getByTestId('knife-d'))) - 1.6)).toBeLessThan(0.005);
+	await page.getByTestId('knife-to-table').click();
+	await expect(page.getByTestId('knife-message')).toContainText('Added 2 scan widths');
+	const table = await page.getByTestId('widths-input').inputValue();
+	const row = table.trim().split('\n').pop()!.split(',').map(Number);
+	expect(row[0]).toBeCloseTo(100, 6);
+	expect(Math.abs(row[1] - 1600)).toBeLessThan(5); // dx = 2·0.8 mm in µm
+	expect(Math.abs(row[2] - 1200)).toBeLessThan(5); // dy = 2·0.6 mm in µm
+	// Reload: the typed scans are kept in the setup (wait for the autosave, no fixed sleep).
+	await expect.poll(() => page.evaluate(() => Object.values(localStorage).join('\n'))).toContain('"knife"');
+	await page.reload();
+	await expect(page.getByTestId('knife-card')).toHaveCount(2);
 });

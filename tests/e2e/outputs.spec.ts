@@ -133,3 +133,97 @@ test('after Add element the new element\'s first field has the focus', async ({ 
 	await page.getByTestId('add-element').click();
 	await expect(page.locator('li.el.selected input').first()).toBeFocused();
 });
+
+test('Measure: the fit report saves as CSV and JSON with the numbers, the wavelength and the plan check shown', async ({ page }) => {
+	await page.goto('/measure/');
+	await page.getByTestId('load-demo-widths').click();
+	await page.getByTestId('m-wavelength').fill('1064 nm');
+	await expect(page.getByTestId('fit-x-m2')).toHaveText(/±/);
+	const csv = await readCsv(await download(page, 'fit-csv'));
+	expect(csv.header.join('\n')).toContain('Wavelength (vacuum): 1064 nm');
+	expect(csv.cols.slice(0, 11)).toEqual(['axis', 'd0_mm', 'u_d0_mm', 'z0_mm', 'u_z0_mm', 'full_divergence_mrad', 'u_full_divergence_mrad', 'zR_mm', 'u_zR_mm', 'M2', 'u_M2']);
+	const col = (name: string) => csv.cols.indexOf(name);
+	for (const axis of ['x', 'y']) {
+		const row = csv.rows.find((r) => r[0] === axis)!;
+		// The page shows "value ± u unit" with 4 significant digits on the value.
+		const shown = (id: string) => page.getByTestId(`fit-${axis}-${id}`).innerText();
+		const [d0v, , d0u] = (await shown('d0_m')).replace('−', '-').split(' ');
+		close4(Number(row[col('d0_mm')]) / 1000, metres(`${d0v} ${(await shown('d0_m')).split(' ').pop()}`));
+		expect(d0u).toBeDefined();
+		const m2 = parseFloat(await shown('m2'));
+		close4(Number(row[col('M2')]), m2);
+		const plan = await page.getByTestId('plan-check').innerText();
+		expect(plan).toContain(`${axis} axis: ${row[col('plan')] === 'meets the rule' ? '✓' : ''}`);
+	}
+	const jsonFile = await download(page, 'fit-json');
+	const j = JSON.parse(readFileSync((await jsonFile.path())!, 'utf8'));
+	expect(j.format).toBe('beamwright-fit-report');
+	expect(j.wavelength_m).toBeCloseTo(1064e-9, 15);
+	const xRow = csv.rows.find((r) => r[0] === 'x')!;
+	close4(j.axes.x.d0_m * 1000, Number(xRow[col('d0_mm')]));
+	close4(j.axes.x.m2, Number(xRow[col('M2')]));
+	expect(typeof j.axes.x.plan.ok).toBe('boolean');
+});
+
+test('Match: focus lands on the results; the ranked solutions save as CSV with the numbers shown', async ({ page }) => {
+	await page.goto('/match/');
+	await page.getByTestId('target-waist').check();
+	await page.getByTestId('target-at').fill('700 mm');
+	await page.getByTestId('target-wx').fill('60 µm');
+	await page.getByTestId('match-run').click();
+	await expect(page.getByTestId('match-progress')).toContainText(/Done/, { timeout: 30_000 });
+	await expect(page.getByTestId('match-results')).toBeFocused();
+	const rows = page.getByTestId('match-row');
+	const shown = await rows.evaluateAll((trs) => trs.map((tr) => [...tr.querySelectorAll('td')].map((td) => (td as HTMLElement).innerText)));
+	const csv = await readCsv(await download(page, 'match-csv'));
+	expect(csv.rows.length).toBe(shown.length);
+	const col = (n: string) => csv.cols.indexOf(n);
+	csv.rows.forEach((r, i) => {
+		expect(r[0]).toBe(String(i + 1));
+		// "Total" column: efficiency in percent as shown (4 significant digits or fewer).
+		const total = parseFloat(shown[i][6]);
+		expect(Math.abs(Number(r[col('efficiency_percent')]) - total)).toBeLessThanOrEqual(0.05 + 1e-3 * total);
+		const firstLens = shown[i][1].split('\n')[0]; // "L1 <label>: f at z"
+		const m = firstLens.match(/: (−?[\d.]+ m?m) at ([\d.]+ m?m)/)!;
+		close4(Number(r[col('lens1_f_mm')]) / 1000, metres(m[1].replace('−', '-')));
+		close4(Number(r[col('lens1_z_mm')]) / 1000, metres(m[2]));
+	});
+});
+
+test('Match: an expander goes on the bench with its spacing, and the expander table saves as CSV', async ({ page }) => {
+	await page.goto('/match/');
+	await page.locator('nav[aria-label="On this page"]').getByRole('link', { name: 'Beam expanders' }).click();
+	await expect(page).toHaveURL(/#exp-h$/);
+	const first = page.getByTestId('expander-row').first();
+	await expect(first).toBeVisible();
+	const csv = await readCsv(await download(page, 'expanders-csv'));
+	const row = csv.rows[0];
+	const spacing_mm = Number(row[csv.cols.indexOf('spacing_mm')]);
+	const at_mm = Number((await page.getByTestId('exp-at').inputValue()).replace(/\s*mm$/, ''));
+	await first.getByTestId('expander-apply').click();
+	await expect(page).toHaveURL(/\/$/);
+	const table = page.getByTestId('element-table');
+	await expect(table).toContainText('EX1');
+	await expect(table).toContainText('EX2');
+	const ex = await table.locator('tbody tr').evaluateAll((trs) => trs.map((tr) => [...tr.querySelectorAll('td')].map((td) => td.textContent ?? '')).filter((c) => c[0].startsWith('EX')));
+	close4(metres(ex[0][1]), at_mm / 1000);
+	close4(metres(ex[1][1]), (at_mm + spacing_mm) / 1000);
+});
+
+test('Hazard: the exposure plot saves as SVG with the caution and the limit source under it', async ({ page }) => {
+	await page.goto('/hazard/');
+	await expect(page.getByTestId('hz-nohd-beam')).toBeVisible();
+	const nohd = (await page.getByTestId('hz-nohd-beam').innerText()).trim();
+	const svgFile = await download(page, 'hazard-plot-svg');
+	expect(svgFile.suggestedFilename()).toMatch(/\.exposure-plot\.svg$/);
+	const svg = readFileSync((await svgFile.path())!, 'utf8');
+	expect(svg).toContain('Exposure along the beam');
+	// The caution travels with every safety output (src/lib/safety/cautions.ts), in the file too.
+	expect(svg).toContain('First-pass estimate, not a hazard evaluation.');
+	expect(svg).toContain('laser safety officer decide');
+	expect(svg).not.toMatch(/NaN|Infinity|undefined|var\(--/);
+	// The plot marks the NOHD that the page shows.
+	const inPlot = /NOHD ([\d.]+) (m|km)/.exec(svg);
+	expect(inPlot).not.toBeNull();
+	close4(metres(`${inPlot![1]} ${inPlot![2]}`), metres(nohd.replace(/^beyond /, '')));
+});

@@ -115,3 +115,22 @@ describe('Airy lines: finesse, linewidth, peak transmission', () => {
 		expect(() => twoMirror(1, 1, 0.5, -0.1)).toThrow(/reflectivity must be ≥ 0 and < 1/);
 	});
 });
+
+describe('predicted scan', () => {
+	it('each mode is an Airy line of height P_mn·T1T2/(1 − r)² at its own frequency, labelled with its indices; lossless mirrors: transmitted + reflected = input everywhere (Hecht 2002, §9.6.1)', async () => {
+		const { predictedScan } = await import('../../src/lib/optics/scan');
+		const s = twoMirror(Infinity, 1, 0.25, 0.98);
+		const modes = [
+			{ m: 0, n: 0, power: 0.9 },
+			{ m: 1, n: 0, power: 0.06 },
+			{ m: 0, n: 2, power: 0.04 }
+		];
+		const scan = predictedScan(s, modes, { reflectivity1: 0.98, reflectivity2: 0.98 }, 2e-3, { from_Hz: -0.1 * s.fsr_Hz, to_Hz: 1.1 * s.fsr_Hz, points: 4001 });
+		// Peak transmission of a symmetric lossless cavity is 1 (T1T2/(1 − R)² with T = 1 − R).
+		const p10 = scan.peaks.find((p) => p.m === 1 && p.n === 0)!;
+		expectClose(p10.transmitted_W, 0.06 * 2e-3, 1e-12);
+		expectClose(p10.detuning_Hz, s.transverseSpacing_Hz.x, 1e-12);
+		expect(scan.peaks.filter((p) => p.m === 0 && p.n === 0).map((p) => p.detuning_Hz / s.fsr_Hz)).toEqual([0, 1]);
+		for (let i = 0; i < scan.detuning_Hz.length; i += 250) expectClose(scan.transmitted_W[i] + scan.reflected_W[i], 2e-3, 1e-12);
+	});
+});

@@ -1,11 +1,10 @@
 /**
- * The cavity lab's document layer and its CLI commands (`spectrum`, `diagnose`), run as a user would.
+ * The cavity lab's document layer and its CLI commands (`spectrum`, `diagnose`), run in-process.
  * Physics checks live in tests/reference/cavity-spectrum.test.ts and mode-content.test.ts; here the
  * wiring: the bench beam into the match target, a lens moved on the bench found again from its peaks,
  * and the CLI's JSON keys and refusals (exit code 2, one line).
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { execFile } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -14,6 +13,7 @@ import { compileMatchDoc, defaultMatchSection, MATCH_ID_PREFIX, readMatchSection
 import { compileLab, diagnoseLab, parsePeaksCsv, readPeaks, defaultLab } from '../../src/lib/document/cavityLab';
 import { validateSetup } from '../../src/lib/document/schema';
 import { expectClose } from '../helpers';
+import { runCli } from '../cli';
 
 function labDoc(shift = '0 mm') {
 	const doc = demoSetup();
@@ -78,13 +78,8 @@ describe('cavity lab in the setup document', () => {
 	});
 });
 
-function cli(args: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
-	return new Promise((resolve) => {
-		execFile('node', ['bin/beamwright.js', ...args], { cwd: process.cwd() }, (err, stdout, stderr) => {
-			resolve({ code: err ? ((err as NodeJS.ErrnoException & { code?: number }).code as unknown as number) ?? 1 : 0, stdout, stderr });
-		});
-	});
-}
+/** The CLI in this process (the same main() as bin/beamwright.js). */
+const cli = (args: string[]) => runCli(...args);
 
 describe('CLI spectrum and diagnose', () => {
 	let dir = '';
@@ -110,15 +105,15 @@ describe('CLI spectrum and diagnose', () => {
 		expect(Object.keys(j.modes[0])).toEqual(expect.arrayContaining(['m', 'n', 'frequency_Hz', 'power']));
 	});
 	it('refuses an unstable cavity, a reflectivity of 1, and peaks adding up to more than their sum: exit 2, one line', async () => {
-		const runs: Promise<{ r: { code: number; stdout: string; stderr: string }; re: RegExp }>[] = [];
+		const runs: { r: { code: number; stdout: string; stderr: string }; re: RegExp }[] = [];
 		for (const [args, re] of [
 			[['spectrum', join(dir, 'unstable.json')], /no stable mode/],
 			[['spectrum', join(dir, 'r1.json')], /reflectivity must be ≥ 0 and < 1/],
 			[['diagnose', 'static/demo/match-cavity.json', '--peaks', join(dir, 'toomuch.csv')], /no more in total than the sum/]
 		] as const) {
-			runs.push(cli([...args]).then((r) => ({ r, re })));
+			runs.push({ r: await cli([...args]), re });
 		}
-		for (const { r, re } of await Promise.all(runs)) {
+		for (const { r, re } of runs) {
 			expect(r.code).toBe(2);
 			expect(r.stderr.trim().split('\n')).toHaveLength(1);
 			expect(r.stderr).toMatch(re);

@@ -11,7 +11,7 @@ import { propagate } from '../../src/lib/optics/train';
 import { run as beamCommand } from '../../src/cli/commands/beam';
 import { SetupStore } from '../../src/lib/document/store.svelte';
 import { assessBeam, MAX_PHYSICAL_NOHD_m } from '../../src/lib/safety/assess';
-import { compileSetup, demoSetup } from '../../src/lib/document';
+import { compileSetup, demoSetup, emptySetup } from '../../src/lib/document';
 
 describe('paraxial range', () => {
 	it('the smallest waist is M²λ/(πn): 10.6 µm, M² 1 → 3.374 µm', () => {
@@ -35,6 +35,27 @@ describe('paraxial range', () => {
 		store.replace(doc);
 		expect(store.outcome.ok).toBe(false);
 		if (!store.outcome.ok) expect(store.outcome.engineError).toMatch(/paraxial/);
+	});
+});
+
+describe('a focus tighter than the paraxial range', () => {
+	it('a 1 mm lens on a 10 mm CO2 beam is flagged (w0′ ≈ λf/(πw) = 0.67 µm < λ/π = 3.37 µm)', () => {
+		// Focused waist w0′ ≈ M²λf/(π·w) for a collimated beam (Siegman 1986, §17.1, from memory).
+		const doc = emptySetup();
+		doc.source.wavelength = '10.6 um';
+		doc.source.x.waist = '5 mm';
+		doc.elements = [{ id: 'l1', kind: 'thinLens', label: 'Shelf lens 4', at: '100 mm', aperture: '', params: { f: '1 mm' } }];
+		const c = compileSetup(doc);
+		expect(c.ok).toBe(true);
+		if (!c.ok) return;
+		const p = propagate(c.input);
+		const flagged = p.warnings.filter((w) => w.code === 'not-paraxial');
+		expect(flagged.length).toBeGreaterThan(0);
+		expect(flagged[0].message).toMatch(/waist after Shelf lens 4 must be ≥ M²·λ\/\(π·n\) = 3\.374 µm/);
+	});
+	it('the demo bench carries no such flag', () => {
+		const c = compileSetup(demoSetup());
+		if (c.ok) expect(propagate(c.input).warnings.filter((w) => w.code === 'not-paraxial')).toEqual([]);
 	});
 });
 

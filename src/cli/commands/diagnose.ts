@@ -11,7 +11,7 @@ export async function run(argv: string[]) {
 	const args = parseArgs(argv);
 	allowOnly(args, ['peaks', 'noise'], { files: { max: 1, label: 'setup', example: 'npx beamwright diagnose setup.json --peaks peaks.csv' } });
 	const file = args.positionals[0];
-	const peaksFile = requireString(args, 'peaks', 'peaks.csv', 'the path of a CSV file of peak heights');
+	const peaksFile = requireString(args, 'peaks', 'peaks.csv', 'the path of a CSV file of peak heights or of a scan trace');
 	const noiseText = optString(args, 'noise', '> 0 and < 50 % of the largest peak, e.g. --noise 1%');
 	let noise = 0.01;
 	if (noiseText !== undefined) {

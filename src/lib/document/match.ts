@@ -17,6 +17,7 @@ import { resolveAxis, type SourceSpec } from '../optics/source';
 import { propagate, beamAt } from '../optics/train';
 import { cavityTarget, fiberTarget, roundTripTarget, waistTarget } from '../optics/solve/targets';
 import { parseLensCsv } from '../optics/solve/inventory';
+import { targetOutsideSubstrate } from '../optics/substrate';
 import type { ExpanderOptions } from '../optics/solve/expander';
 import type { MatchProblem, RankBy } from '../optics/solve/search';
 import type { InputBeam, Interval, StockLens, TargetMode } from '../optics/solve/types';
@@ -43,7 +44,7 @@ const RingSchema = v.object({
 });
 export type RingSection = v.InferOutput<typeof RingSchema>;
 
-/** The invented Larkspur St. lab's bow-tie ring: two flat and two 100 mm mirrors, all at 8°. */
+/** The invented Demo lab's bow-tie ring: two flat and two 100 mm mirrors, all at 8°. */
 export function defaultRing(): RingSection {
 	return {
 		type: 'ring',
@@ -55,6 +56,11 @@ export function defaultRing(): RingSection {
 		],
 		input: 0
 	};
+}
+
+/** No substrate lens (thickness left empty); fused silica and a flat back face once a thickness is typed. */
+export function defaultSubstrate(): { thickness: string; n: string; rBack: string } {
+	return { thickness: '', n: '1.45', rBack: 'flat' };
 }
 
 export const MatchSectionSchema = v.object({
@@ -72,6 +78,12 @@ export const MatchSectionSchema = v.object({
 		/** cavity: an optional thin (e.g. thermal) lens between the mirrors: focal length ('' = none) and distance from mirror 1. */
 		lensF: v.optional(text, ''),
 		lensAt: v.optional(text, ''),
+		/**
+		 * cavity: the input mirror's substrate as a lens (thickness '' = left out). `at` is then the coated
+		 * face; the target is the mode outside the back face. rBack: back face radius, + when its centre
+		 * lies towards the cavity, "flat" by default. Optional with a default, so older documents read as before.
+		 */
+		substrate: v.optional(v.object({ thickness: text, n: text, rBack: text }), defaultSubstrate),
 		ring: v.optional(RingSchema, defaultRing),
 		/** fiber: 'mfd' (mode-field diameter given) or 'core' (core radius + NA). */
 		fiberBy: v.optional(v.picklist(['mfd', 'core']), 'mfd'),
@@ -93,19 +105,19 @@ export const MatchSectionSchema = v.object({
 export type MatchSection = v.InferOutput<typeof MatchSectionSchema>;
 export type InventoryRow = MatchSection['inventory'][number];
 
-/** The starting section: the invented Larkspur St. lab couples its rod laser into a reference cavity. */
+/** The starting section: the invented Demo lab couples its rod laser into a reference cavity. */
 export function defaultMatchSection(): MatchSection {
 	return {
 		input: { from: 'source' },
-		target: { kind: 'cavity', at: '900 mm', wx: '50 µm', wy: '', r1: 'flat', r2: '500 mm', length: '250 mm', lensF: '', lensAt: '', ring: defaultRing(), fiberBy: 'mfd', mfd: '6.2 µm', coreRadius: '3 µm', na: '0.13' },
+		target: { kind: 'cavity', at: '900 mm', wx: '50 µm', wy: '', r1: 'flat', r2: '500 mm', length: '250 mm', lensF: '', lensAt: '', substrate: defaultSubstrate(), ring: defaultRing(), fiberBy: 'mfd', mfd: '6.2 µm', coreRadius: '3 µm', na: '0.13' },
 		inventory: stockToRows([
-			{ label: 'LS drawer A1 (−50)', f_m: -0.05, diameter_m: 0.0127, count: 2 },
-			{ label: 'LS drawer B2 (+50)', f_m: 0.05, diameter_m: 0.0254, count: 2 },
-			{ label: 'LS drawer B4 (+100)', f_m: 0.1, diameter_m: 0.0254, count: 3 },
-			{ label: 'LS drawer B6 (+150)', f_m: 0.15, diameter_m: 0.0254, count: 2 },
-			{ label: 'LS drawer C1 (+200)', f_m: 0.2, diameter_m: 0.0254, count: 2 },
-			{ label: 'LS drawer C3 (+300)', f_m: 0.3, diameter_m: 0.0254, count: 1 },
-			{ label: 'LS drawer C5 (+500)', f_m: 0.5, diameter_m: 0.0508, count: 1 }
+			{ label: 'Shelf lens A1 (−50)', f_m: -0.05, diameter_m: 0.0127, count: 2 },
+			{ label: 'Shelf lens B2 (+50)', f_m: 0.05, diameter_m: 0.0254, count: 2 },
+			{ label: 'Shelf lens B4 (+100)', f_m: 0.1, diameter_m: 0.0254, count: 3 },
+			{ label: 'Shelf lens B6 (+150)', f_m: 0.15, diameter_m: 0.0254, count: 2 },
+			{ label: 'Shelf lens C1 (+200)', f_m: 0.2, diameter_m: 0.0254, count: 2 },
+			{ label: 'Shelf lens C3 (+300)', f_m: 0.3, diameter_m: 0.0254, count: 1 },
+			{ label: 'Shelf lens C5 (+500)', f_m: 0.5, diameter_m: 0.0508, count: 1 }
 		]),
 		rail: { from: '50 mm', to: '850 mm' },
 		slots: [],
@@ -125,7 +137,7 @@ export function defaultMatchSection(): MatchSection {
 export function emptyMatchSection(): MatchSection {
 	return {
 		input: { from: 'source' },
-		target: { kind: 'waist', at: '', wx: '', wy: '', r1: '', r2: '', length: '', lensF: '', lensAt: '', ring: { type: 'ring', mirrors: [], input: 0 }, fiberBy: 'mfd', mfd: '', coreRadius: '', na: '' },
+		target: { kind: 'waist', at: '', wx: '', wy: '', r1: '', r2: '', length: '', lensF: '', lensAt: '', substrate: defaultSubstrate(), ring: { type: 'ring', mirrors: [], input: 0 }, fiberBy: 'mfd', mfd: '', coreRadius: '', na: '' },
 		inventory: [],
 		rail: { from: '', to: '' },
 		slots: [],
@@ -219,6 +231,8 @@ export interface CompiledMatch {
 	/** All messages in order, each naming its field. */
 	errors: string[];
 	cavity: CavityReadout | null;
+	/** The input mirror's substrate, when given: the target is then the mode outside its back face (at coatedFaceAt_m − thickness_m). */
+	substrate: { thickness_m: number; index: number; backR_m: number; coatedFaceAt_m: number } | null;
 	ring: RingReadout | null;
 	fiber: FiberMode | null;
 	target: TargetReadout | null;
@@ -256,7 +270,7 @@ function radiusText(t: string, label: string, path: string, err: (p: string, m: 
  * when the section takes the bench's beam at the rail start as its input.
  */
 export function compileMatchSection(raw: unknown, source: SourceSpec, doc?: SetupDoc): CompiledMatch {
-	const out: CompiledMatch = { problem: null, fieldErrors: {}, errors: [], cavity: null, ring: null, fiber: null, target: null, input: null, ignored: [], rail: null, inventory: null, inputBeam: null };
+	const out: CompiledMatch = { problem: null, fieldErrors: {}, errors: [], cavity: null, substrate: null, ring: null, fiber: null, target: null, input: null, ignored: [], rail: null, inventory: null, inputBeam: null };
 	const err = (path: string, message: string) => {
 		if (!(path in out.fieldErrors)) out.fieldErrors[path] = message;
 		out.errors.push(message);
@@ -384,6 +398,26 @@ export function compileMatchSection(raw: unknown, source: SourceSpec, doc?: Setu
 					target = roundTripTarget(mode, at);
 					out.roundTrip = { kind: 'linear', path_m: 2 * len, reflections: 2, matrices: mode.matrices, mode: { x: { ...target.x }, y: { ...target.y } }, at_m: at };
 				}
+			}
+		}
+		// The input mirror's substrate: the target becomes the mode outside its back face.
+		const sub = t.substrate;
+		if (sub.thickness.trim() !== '') {
+			const before2 = n0();
+			const thickness = q('target.substrate.thickness', sub.thickness, L('Substrate thickness', { min_si: undefined, above_si: 0, max_si: 0.1 }));
+			const index = q('target.substrate.n', sub.n, { label: 'Substrate index', kind: 'dimensionless', min_si: 1, max_si: 5 });
+			const backR = radiusText(sub.rBack.trim() === '' ? 'flat' : sub.rBack, 'Substrate back face radius', 'target.substrate.rBack', err);
+			if (Number.isFinite(thickness) && !Number.isNaN(r1) && thickness >= Math.abs(r1)) {
+				err('target.substrate.thickness', `Substrate thickness must be less than the mirror 1 radius (${t.r1.trim()}) — got ${sub.thickness.trim()}`);
+			}
+			if (n0() === before2 && target) {
+				out.substrate = { thickness_m: thickness, index, backR_m: backR, coatedFaceAt_m: target.z_m };
+				target = targetOutsideSubstrate(target, r1, { thickness_m: thickness, index, backR_m: backR });
+				// The cavity lab sees the mode as it leaves the back face (its spectrum is unchanged).
+				if (out.roundTrip) out.roundTrip = { ...out.roundTrip, mode: { x: { ...target.x }, y: { ...target.y } }, at_m: target.z_m };
+			} else if (n0() !== before2) {
+				target = null;
+				out.roundTrip = null;
 			}
 		}
 	} else if (t.kind === 'ring') {
@@ -589,7 +623,7 @@ export function compileMatchDoc(doc: SetupDoc): CompiledMatch {
 	const errs: FieldError[] = [];
 	const source = compileSource(doc, errs);
 	if (errs.length) {
-		const out: CompiledMatch = { problem: null, fieldErrors: { 'input.from': `The bench source needs fixing first: ${errs[0].message}` }, errors: [], cavity: null, ring: null, fiber: null, target: null, input: null, ignored: [], rail: null, inventory: null, inputBeam: null };
+		const out: CompiledMatch = { problem: null, fieldErrors: { 'input.from': `The bench source needs fixing first: ${errs[0].message}` }, errors: [], cavity: null, substrate: null, ring: null, fiber: null, target: null, input: null, ignored: [], rail: null, inventory: null, inputBeam: null };
 		out.errors.push(out.fieldErrors['input.from']);
 		return out;
 	}

@@ -6,6 +6,7 @@
  * q̂′ = (A·q̂ + B)/(C·q̂ + D) (Kogelnik & Li 1966, eq. 26); free space adds d/n to q̂.
  * The Gouy phase accumulates as −arg(A + B/q̂) through each step (Siegman 1986, §20.1).
  */
+import { paraxialProblem } from './paraxial';
 import { beamFromQ, type BeamAt, type QHat } from './beam';
 import { compileElement, type ElementSpec, type Mat2, type Step } from './elements';
 import { resolveAxis, type AxisWaist, type SourceSpec } from './source';
@@ -57,7 +58,7 @@ export interface Waist {
 	insideId: string | null;
 }
 
-export type WarningCode = 'clipped' | 'larger-than-aperture' | 'virtual-waist' | 'overlap' | 'source-note';
+export type WarningCode = 'clipped' | 'larger-than-aperture' | 'virtual-waist' | 'overlap' | 'source-note' | 'not-paraxial';
 
 export interface TrainWarning {
 	code: WarningCode;
@@ -256,6 +257,13 @@ export function propagate(input: TrainInput): Propagation {
 			elementId: null,
 			message: `after ${s.afterLabel} the ${w.axis} beam diverges from a virtual waist at ${fmtM(w.z_m)} (no real ${w.axis} waist between ${fmtM(s.z0_m)} and ${fmtM(s.z1_m)})`
 		});
+	}
+	// A focus tighter than the paraxial range (paraxial.ts) is flagged: the numbers past it are not a real beam.
+	for (const w of waists) {
+		if (w.virtual) continue;
+		const s = segments[w.segment];
+		const p = paraxialProblem(w.w0_m, lam, w.axis === 'x' ? wx.m2 : wy.m2, s.index, `the ${w.axis} waist ${s.afterLabel ? `after ${s.afterLabel}` : 'of the source'}`);
+		if (p) warnings.push({ code: 'not-paraxial', level: 'warning', elementId: null, message: `${p} — the beam past this point is outside what the model describes` });
 	}
 
 	return {

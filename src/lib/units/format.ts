@@ -74,3 +74,33 @@ export function axisPrefix(maxAbs_si: number, unit: string): { factor: number; u
 	const last = prefixes[prefixes.length - 1];
 	return { factor: last[0], unit: last[1] + unit };
 }
+
+/**
+ * A value and its standard uncertainty with the same digits and unit: formatWithUncertainty(0.15010,
+ * 0.00005, 'm') → "150.10 ± 0.05 mm". The prefix follows the value; the uncertainty keeps two significant
+ * digits when its leading three digits are 100–354 and one otherwise, and the value is rounded to the
+ * same decimal place (the rounding rule of the Particle Data Group's Review of Particle Physics,
+ * introduction — from memory; GUM, JCGM 100:2008, §7.2.6 asks for at most two significant digits).
+ * Without a usable uncertainty the value is printed to 4 significant figures; below a millionth of
+ * the value, the uncertainty is given as a bound ("1.2 ± <1×10^−7").
+ */
+export function formatWithUncertainty(value_si: number, u_si: number | null | undefined, unit: string): string {
+	const p = unit && unit !== '%' && unit !== '°' ? axisPrefix(Math.abs(value_si), unit) : { factor: 1, unit };
+	const tail = p.unit ? (p.unit === '°' ? '°' : ` ${p.unit}`) : '';
+	const v = value_si / p.factor;
+	const u = u_si === null || u_si === undefined ? NaN : Math.abs(u_si) / p.factor;
+	if (!Number.isFinite(v) || !(u > 0) || !Number.isFinite(u) || u > 1e6 * Math.max(Math.abs(v), 1e-300)) return `${formatNumber(v, 4)}${tail}`;
+	// Exact or nearly exact data: a bound keeps the line short ("1.2 ± <1×10^−6").
+	if (u < 1e-6 * Math.abs(v)) return `${formatNumber(v, 6)} ± <${formatNumber(10 ** Math.ceil(Math.log10(u)), 1)}${tail}`;
+	const e = Math.floor(Math.log10(u));
+	const lead = Math.floor(u / 10 ** (e - 2) + 1e-9);
+	const digits = lead <= 354 ? 2 : 1;
+	// A carry (0.0996 → 0.10) can only happen with one digit, and gives leading digits 100, which keep
+	// two digits: the decimal place stays the same.
+	const place = e - digits + 1;
+	const ur = Math.round(u / 10 ** place) * 10 ** place;
+	const dec = Math.max(0, -place);
+	const vr = Math.round(v / 10 ** place) * 10 ** place;
+	const fix = (x: number) => x.toFixed(dec).replace('-', '−');
+	return `${fix(vr)} ± ${fix(ur)}${tail}`;
+}

@@ -26,11 +26,13 @@ export interface BeamFrameSpec {
 	/** Standard deviation of the added noise, Y units. */
 	noise: number;
 	seed?: number;
+	/** Frames per second written in the header (the fake camera plays at this rate); default 10. */
+	fps?: number;
 }
 
 export function writeBeamY4m(path: string, s: BeamFrameSpec): void {
 	const { width: W, height: H } = s;
-	const header = Buffer.from(`YUV4MPEG2 W${W} H${H} F10:1 Ip A1:1 C420jpeg\n`, 'ascii');
+	const header = Buffer.from(`YUV4MPEG2 W${W} H${H} F${s.fps ?? 10}:1 Ip A1:1 C420jpeg\n`, 'ascii');
 	const ySize = W * H;
 	const cSize = (W / 2) * (H / 2);
 	const frameBytes = 6 + ySize + 2 * cSize;

@@ -57,26 +57,26 @@ export function lensCsv(lenses: StockLens[]): string {
 }
 
 /**
- * The demo shelf of the Larkspur Street teaching lab (invented): labels are the lab's own drawer codes.
+ * The demo shelf of the invented "Demo lab": labels are the lab's own drawer codes.
  */
 export function demoShelf(): StockLens[] {
 	const row = (label: string, f_mm: number, dia_mm: number, count: number): StockLens => ({ label, f_m: f_mm / 1000, diameter_m: dia_mm / 1000, count });
 	return [
-		row('LS drawer A1 (−50)', -50, 12.7, 2),
-		row('LS drawer A2 (−75)', -75, 25.4, 1),
-		row('LS drawer A3 (−100)', -100, 25.4, 1),
-		row('LS drawer B1 (+40)', 40, 12.7, 2),
-		row('LS drawer B2 (+50)', 50, 25.4, 2),
-		row('LS drawer B3 (+75)', 75, 25.4, 1),
-		row('LS drawer B4 (+100)', 100, 25.4, 3),
-		row('LS drawer B5 (+125)', 125, 25.4, 1),
-		row('LS drawer B6 (+150)', 150, 25.4, 2),
-		row('LS drawer C1 (+200)', 200, 25.4, 2),
-		row('LS drawer C2 (+250)', 250, 25.4, 1),
-		row('LS drawer C3 (+300)', 300, 25.4, 1),
-		row('LS drawer C4 (+400)', 400, 50.8, 1),
-		row('LS drawer C5 (+500)', 500, 50.8, 1),
-		row('LS drawer C6 (+750)', 750, 50.8, 1),
-		row('LS drawer C7 (+1000)', 1000, 50.8, 1)
+		row('Shelf lens A1 (−50)', -50, 12.7, 2),
+		row('Shelf lens A2 (−75)', -75, 25.4, 1),
+		row('Shelf lens A3 (−100)', -100, 25.4, 1),
+		row('Shelf lens B1 (+40)', 40, 12.7, 2),
+		row('Shelf lens B2 (+50)', 50, 25.4, 2),
+		row('Shelf lens B3 (+75)', 75, 25.4, 1),
+		row('Shelf lens B4 (+100)', 100, 25.4, 3),
+		row('Shelf lens B5 (+125)', 125, 25.4, 1),
+		row('Shelf lens B6 (+150)', 150, 25.4, 2),
+		row('Shelf lens C1 (+200)', 200, 25.4, 2),
+		row('Shelf lens C2 (+250)', 250, 25.4, 1),
+		row('Shelf lens C3 (+300)', 300, 25.4, 1),
+		row('Shelf lens C4 (+400)', 400, 50.8, 1),
+		row('Shelf lens C5 (+500)', 500, 50.8, 1),
+		row('Shelf lens C6 (+750)', 750, 50.8, 1),
+		row('Shelf lens C7 (+1000)', 1000, 50.8, 1)
 	];
 }

@@ -448,6 +448,8 @@ export function createSearch(p: MatchProblem): Search {
 		const t = [ti, 0, 0];
 		const z = [0, 0, 0];
 		const pair = [ti, 0];
+		const s1Re = [0, 0];
+		const s1Im = [0, 0];
 		// Best and second best (another third lens) of the current pair: estimate, third type, positions.
 		let e1 = -1;
 		let k1 = -1;
@@ -459,6 +461,7 @@ export function createSearch(p: MatchProblem): Search {
 			pair[1] = tj;
 			if (!available(pair)) continue;
 			t[1] = tj;
+			const inv2 = 1 / types[tj].f;
 			e1 = -1;
 			e2 = -1;
 			for (let g1 = 0; g1 < GRID3; g1++) {
@@ -467,15 +470,30 @@ export function createSearch(p: MatchProblem): Search {
 				const lo2 = Math.max(R[1].from_m, z1 + minS);
 				if (R[1].to_m < lo2) continue;
 				const h2 = (R[1].to_m - lo2) / (GRID3 - 1);
+				z[0] = z1;
+				prefix(t, z, 1);
+				s1Re[0] = bRe[0];
+				s1Re[1] = bRe[1];
+				s1Im[0] = bIm[0];
+				s1Im[1] = bIm[1];
 				for (let g2 = 0; g2 < GRID3; g2++) {
 					const z2 = lo2 + g2 * h2;
 					if (blocked(z2)) continue;
 					const lo3 = Math.max(R[2].from_m, z2 + minS);
 					const hi3 = R[2].to_m;
 					if (hi3 < lo3) continue;
-					z[0] = z1;
-					z[1] = z2;
-					prefix(t, z, 2);
+					// The beam after lens 2 from the beam after lens 1 (kept per z1).
+					for (let a = 0; a < nAx; a++) {
+						const re = s1Re[a] + (z2 - z1);
+						const im = s1Im[a];
+						const den = re * re + im * im;
+						const ur = re / den - inv2;
+						const ui = -im / den;
+						const d2 = ur * ur + ui * ui;
+						bRe[a] = ur / d2;
+						bIm[a] = -ui / d2;
+					}
+					zp = z2;
 					for (let a = 0; a < nAx; a++) {
 						const exact = equalWidths(a, lo3, hi3, roots);
 						for (let r = 0; r < roots.length; r++) {

@@ -29,6 +29,8 @@ export interface PlotHeader {
 	setup: string;
 	/** Export date; defaults to now. */
 	date?: Date;
+	/** Lines printed under the plot (e.g. the safety caution, which must travel with a hazard plot). */
+	footer?: readonly string[];
 }
 
 function esc(s: string): string {
@@ -41,7 +43,8 @@ export function standaloneSvg(svg: SVGSVGElement, header: PlotHeader): { text: s
 	const width = Math.ceil(box.width);
 	const plotH = Math.ceil(box.height);
 	const band = 44;
-	const height = plotH + band + 8;
+	const footer = header.footer ?? [];
+	const height = plotH + band + 8 + footer.length * 16;
 	const copy = svg.cloneNode(true) as SVGSVGElement;
 	const src = [svg, ...Array.from(svg.querySelectorAll('*'))];
 	const dst = [copy, ...Array.from(copy.querySelectorAll('*'))];
@@ -70,7 +73,9 @@ export function standaloneSvg(svg: SVGSVGElement, header: PlotHeader): { text: s
 		`<rect width="100%" height="100%" fill="${esc(bg)}"/>` +
 		`<text x="12" y="20" font-size="15" font-weight="700" fill="${esc(fg)}">${esc(header.title)} — ${esc(header.setup)}</text>` +
 		`<text x="12" y="37" font-size="12" fill="${esc(fg)}">Beamwright · exported ${esc(date)}</text>` +
-		`<g transform="translate(0,${band})">${inner}</g></svg>`;
+		`<g transform="translate(0,${band})">${inner}</g>` +
+		footer.map((line, i) => `<text x="12" y="${band + plotH + 18 + i * 16}" font-size="12" fill="${esc(fg)}">${esc(line)}</text>`).join('') +
+		`</svg>`;
 	return { text, width, height };
 }
 
