@@ -17,10 +17,12 @@ import { writeBeamY4m, type BeamFrameSpec } from './support/y4m';
 
 const dir = mkdtempSync(join(tmpdir(), 'bw-cam-'));
 const video = join(dir, 'camera.y4m');
-const W = 320;
-const H = 240;
-const pitch_m = 10e-6;
-const base: BeamFrameSpec = { width: W, height: H, frames: 6, wa_px: 30, wb_px: 18, angle_rad: (20 * Math.PI) / 180, cx: 155, cy: 122, drift_px: 0.3, background: 40, peak: 170, noise: 1.5 };
+// Read-out checks use 640 × 480 frames with a 120 × 72 px (D4σ) beam; the caustic journey uses 320 × 240
+// frames at twice the pitch (same beam sizes in µm), which is quicker to write and to measure.
+const W = 640;
+const H = 480;
+const pitch_m = 5e-6;
+const base: BeamFrameSpec = { width: W, height: H, frames: 6, wa_px: 60, wb_px: 36, angle_rad: (20 * Math.PI) / 180, cx: 310, cy: 245, drift_px: 0.5, background: 40, peak: 170, noise: 1.5 };
 writeBeamY4m(video, base);
 
 const debianChromium = '/usr/bin/chromium';
@@ -50,11 +52,11 @@ function metres(text: string): number {
 	return Number(m[1]) * { nm: 1e-9, µm: 1e-6, mm: 1e-3, m: 1 }[m[2] as 'nm' | 'µm' | 'mm' | 'm'];
 }
 
-async function openLive(page: Page, beam = true) {
+async function openLive(page: Page, beam = true, pitch = '5 um') {
 	await page.goto('/measure/');
 	await page.evaluate(() => localStorage.clear());
 	await page.goto('/measure/');
-	await page.getByTestId('pixel-pitch').fill('10 um');
+	await page.getByTestId('pixel-pitch').fill(pitch);
 	await page.getByTestId('live-open').click();
 	await page.getByTestId('live-start').click();
 	if (beam) await expect(page.getByTestId('live-readout')).toBeVisible({ timeout: 30_000 });
@@ -105,8 +107,9 @@ test('a saturated beam is flagged with its pixel count; a refused camera gets a 
 test('guided caustic scan: dark frame, ten planes at typed z, ISO 11146 fit, fit becomes the bench source', async ({ page }) => {
 	test.setTimeout(240_000);
 	// Dark frame: the beam blocked, only the sensor's offset and noise.
-	writeBeamY4m(video, { ...base, peak: 0, drift_px: 0, frames: 3 });
-	await openLive(page, false);
+	const jw = 320, jh = 240, jpitch = 10e-6;
+	writeBeamY4m(video, { ...base, width: jw, height: jh, peak: 0, drift_px: 0, frames: 3 });
+	await openLive(page, false, '10 um');
 	await page.getByTestId('m-wavelength').fill('1064 nm');
 	await page.getByTestId('live-dark').click();
 	await expect(page.getByTestId('live-status')).toContainText('Dark frame captured');
@@ -124,7 +127,7 @@ test('guided caustic scan: dark frame, ten planes at typed z, ISO 11146 fit, fit
 		const z = 0.1 + k * zR;
 		const dx = caustic(200e-6, 0.1, 1.2, z);
 		const dy = caustic(240e-6, 0.11, 1.4, z);
-		writeBeamY4m(video, { ...base, angle_rad: 0, drift_px: 0, frames: 3, wa_px: dx / 2 / pitch_m, wb_px: dy / 2 / pitch_m, cx: 160, cy: 120, seed: i + 2 });
+		writeBeamY4m(video, { ...base, width: jw, height: jh, angle_rad: 0, drift_px: 0, frames: 3, wa_px: dx / 2 / jpitch, wb_px: dy / 2 / jpitch, cx: 160, cy: 120, seed: i + 2 });
 		await page.getByTestId('live-start').click();
 		await waitForDx(page, dx, 0.02);
 		await page.getByTestId('live-z').fill(`${(z * 1e3).toFixed(3)} mm`);

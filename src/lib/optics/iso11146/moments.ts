@@ -262,26 +262,55 @@ function iterateArea(img: GreyImage, bg: Background, start: Sums, factor: number
 	let s = start;
 	let area: IntegrationArea = { cx: (W - 1) / 2, cy: (H - 1) / 2, hu: W / 2, hv: H / 2, phi: 0 };
 	let rows = wholeFrame(W, H);
-	let before: PixelRows | null = null;
+	// Every pixel set visited, with the moments it gave: a turned rectangle of whole pixels can cycle
+	// through a few sets whose moments differ only by noise; a return to a set already seen ends the
+	// iteration, and the result is the mean over that cycle.
+	const visited: Array<{ rows: PixelRows; area: IntegrationArea; m: Sums; clipped: boolean }> = [];
 	let clipped = false;
 	let it = 0;
+	// After FREEZE_AFTER iterations the area's azimuth is held at the mean of the ones seen so far: noise
+	// in the azimuth alone can keep a turned rectangle of whole pixels from ever repeating.
+	const FREEZE_AFTER = 12;
+	const phis: number[] = [];
+	let frozenPhi: number | null = null;
 	const areaOf = (m: Sums): IntegrationArea => {
 		const pr = principal(m.xx, m.yy, m.xy);
 		// A round beam has no principal axes (its azimuth is noise): then the image axes are used.
 		if (Math.abs(pr.s1 - pr.s2) <= ROUND * (pr.s1 + pr.s2)) return { cx: m.cx, cy: m.cy, hu: 2 * factor * Math.sqrt(m.xx), hv: 2 * factor * Math.sqrt(m.yy), phi: 0 };
-		return { cx: m.cx, cy: m.cy, hu: 2 * factor * Math.sqrt(Math.max(0, pr.s1)), hv: 2 * factor * Math.sqrt(Math.max(0, pr.s2)), phi: pr.phi };
+		phis.push(pr.phi);
+		if (frozenPhi === null && phis.length > FREEZE_AFTER) frozenPhi = phis.reduce((a, b) => a + b, 0) / phis.length;
+		const phi = frozenPhi ?? pr.phi;
+		if (frozenPhi === null) return { cx: m.cx, cy: m.cy, hu: 2 * factor * Math.sqrt(Math.max(0, pr.s1)), hv: 2 * factor * Math.sqrt(Math.max(0, pr.s2)), phi };
+		// Widths along the held azimuth: σ(α)² = σx²cos²α + 2σxy sinα cosα + σy² sin²α.
+		const c = Math.cos(phi), sn = Math.sin(phi);
+		const su = m.xx * c * c + 2 * m.xy * sn * c + m.yy * sn * sn;
+		const sv = m.xx * sn * sn - 2 * m.xy * sn * c + m.yy * c * c;
+		return { cx: m.cx, cy: m.cy, hu: 2 * factor * Math.sqrt(Math.max(0, su)), hv: 2 * factor * Math.sqrt(Math.max(0, sv)), phi };
 	};
 	while (it < maxIt) {
 		it++;
 		const nextArea = areaOf(s);
 		const next = areaPixels(nextArea, W, H);
 		if (next.rows.y1 - next.rows.y0 < 2 || next.width < 3) break;
-		// The area is a set of whole pixels: the same set again (or the one before, a two-step cycle that
-		// noise can cause) gives moments already computed, so the iteration has settled.
-		if (it > 1 && (samePixels(next.rows, rows) || (before && samePixels(next.rows, before)))) return { s, area, rows, iterations: it - 1, converged: true, clipped };
+		// The area is a set of whole pixels: the same set again gives moments already computed, so the
+		// iteration has settled (on one set, or on a short cycle of sets: then take their mean).
+		if (it > 1) {
+			let k = -1;
+			for (let j = visited.length - 1; j >= 0; j--) if (samePixels(next.rows, visited[j].rows)) {
+				k = j;
+				break;
+			}
+			if (k >= 0) {
+				const cyc = visited.slice(k);
+				const mean = (f: (m: Sums) => number) => cyc.reduce((a, v) => a + f(v.m), 0) / cyc.length;
+				const last = visited[visited.length - 1];
+				const avg: Sums = { p: mean((m) => m.p), cx: mean((m) => m.cx), cy: mean((m) => m.cy), xx: mean((m) => m.xx), yy: mean((m) => m.yy), xy: mean((m) => m.xy) };
+				return { s: avg, area: last.area, rows: last.rows, iterations: it - 1, converged: true, clipped: cyc.some((v) => v.clipped) };
+			}
+		}
 		const m = momentSums(img, bg, next.rows, 1, s.cx, s.cy, cut);
 		if (!m || !(m.xx > 0) || !(m.yy > 0)) break;
-		before = rows;
+		visited.push({ rows: next.rows, area: nextArea, m, clipped: next.clipped });
 		rows = next.rows;
 		area = nextArea;
 		clipped = next.clipped;
