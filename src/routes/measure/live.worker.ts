@@ -48,7 +48,8 @@ const api = {
 			if (dark && dark.length !== width * height) dark = null;
 		}
 		averager.push(grey);
-		const img = { width, height, data: averager.mean(dark) };
+		// One frame and no dark frame: the grey frame itself (no copy into floats).
+		const img = { width, height, data: averageN === 1 && !dark ? grey : averager.mean(dark) };
 		const sig = checkSignal(img);
 		let moments: BeamMoments | null = null;
 		let error: string | null = null;
