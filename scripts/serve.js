@@ -69,9 +69,12 @@ const server = createServer(async (req, res) => {
 		vary: 'Accept-Encoding'
 	};
 	let body = null;
+	const original = await stat(file);
 	for (const [token, ext] of [['br', '.br'], ['gzip', '.gz']]) {
 		if (!accepts(accept, token)) continue;
 		try {
+			// A precompressed form older than the file itself is stale (the file was rebuilt or edited).
+			if ((await stat(file + ext)).mtimeMs < original.mtimeMs) continue;
 			body = await readFile(file + ext);
 			headers['content-encoding'] = token;
 			break;
