@@ -113,3 +113,54 @@ export function fitReportCsv(r: WidthsResult, c: FitReportContext): string {
 		rows
 	});
 }
+
+/** One knife-edge or slit scan's fit, as the Measure page shows it. */
+export interface KnifeFitRow {
+	scan: number;
+	axis: string;
+	kind: string;
+	/** Plane of the scan, m (null when its z is not valid yet). */
+	z_m: number | null;
+	w_m: number;
+	u_w_m: number;
+	d4sigma_m: number;
+	u_d4sigma_m: number;
+	d4sigmaFrom: string;
+	center_m: number;
+	u_center_m: number;
+	clip10_90_m: number | null;
+	clip16_84_m: number | null;
+	residual_percent: number;
+	points: number;
+	flagged: number;
+}
+
+/** The knife-edge / slit scan fits (one row per scan that fits). */
+export function knifeFitsCsv(rows: readonly KnifeFitRow[], setup: string, date?: Date): string {
+	const mm = (v: number | null) => (v === null ? null : v * 1e3);
+	return toCsv({
+		title: 'Measure: knife-edge and slit scan fits',
+		setup,
+		date,
+		notes: ['Uncertainties are standard uncertainties (1σ) from the fit.'],
+		columns: [
+			{ name: 'scan', about: 'scan number on the page' },
+			{ name: 'axis', about: 'x or y' },
+			{ name: 'kind', about: 'knife (edge) or slit' },
+			{ name: 'z_mm', about: 'plane of the scan, mm (empty: not given yet)' },
+			{ name: 'w_mm', about: 'radius w (1/e², error-function fit), mm' },
+			{ name: 'u_w_mm', about: 'standard uncertainty of w, mm' },
+			{ name: 'd_mm', about: 'diameter d = D4σ, mm (see d_from)' },
+			{ name: 'u_d_mm', about: 'standard uncertainty of d, mm' },
+			{ name: 'd_from', about: 'clip10_90: 1.5606 × the 10/90 % clip distance; fit: 2w' },
+			{ name: 'centre_mm', about: 'beam centre on the blade axis, mm' },
+			{ name: 'u_centre_mm', about: 'standard uncertainty of the centre, mm' },
+			{ name: 'clip10_90_mm', about: '10/90 % clip distance, mm (empty: not reached)' },
+			{ name: 'clip16_84_mm', about: '16/84 % clip distance, mm (empty: not reached)' },
+			{ name: 'residual_rms_percent', about: 'RMS residual of the fit, % of the beam power' },
+			{ name: 'points', about: 'points used' },
+			{ name: 'flagged_lines', about: 'lines of the scan that could not be read' }
+		],
+		rows: rows.map((r) => [r.scan, r.axis, r.kind, mm(r.z_m), mm(r.w_m), mm(r.u_w_m), mm(r.d4sigma_m), mm(r.u_d4sigma_m), r.d4sigmaFrom, mm(r.center_m), mm(r.u_center_m), mm(r.clip10_90_m), mm(r.clip16_84_m), r.residual_percent, r.points, r.flagged])
+	});
+}

@@ -61,3 +61,26 @@ export function expandersCsv(list: readonly Expander[], setup: string, lens1At_m
 		rows: list.map((e) => [e.kind, e.lens1, e.lens2, e.f1_m * 1e3, e.f2_m * 1e3, e.magnification, e.spacing_m * 1e3, e.spacingTolerance_m * 1e3, e.outputWaist_m * 1e3, e.outputWaistAfter_m * 1e3, e.divergence_rad * 1e3])
 	});
 }
+
+/** The exact single lenses per axis (continuous focal length), with whether each sits on the rail. */
+export function singleLensCsv(perAxis: { x: readonly { f_m: number; z_m: number; onRail: boolean }[]; y: readonly { f_m: number; z_m: number; onRail: boolean }[] }, setup: string, rail: { from_m: number; to_m: number }, date?: Date): string {
+	const rows: Array<Array<number | string | null>> = [];
+	for (const axis of ['x', 'y'] as const) {
+		const list = perAxis[axis];
+		if (list.length === 0) rows.push([axis, null, null, 'none: no single lens can do it']);
+		for (const s of list) rows.push([axis, s.f_m * 1e3, s.z_m * 1e3, s.onRail ? 'yes' : 'no']);
+	}
+	return toCsv({
+		title: 'Match: one lens, any focal length (exact thin lens per axis)',
+		setup,
+		date,
+		notes: [`Rail from z = ${+(rail.from_m * 1e3).toPrecision(6)} mm to z = ${+(rail.to_m * 1e3).toPrecision(6)} mm`],
+		columns: [
+			{ name: 'axis', about: 'x or y' },
+			{ name: 'f_mm', about: 'focal length of the thin lens that turns the input waist into the target waist on this axis, mm' },
+			{ name: 'z_mm', about: 'lens position on the bench axis z, mm' },
+			{ name: 'on_rail', about: 'yes when the position lies on the rail, no when outside it; "none" when no single lens can do it' }
+		],
+		rows
+	});
+}
