@@ -1,4 +1,6 @@
 import { test, expect, type Page } from '@playwright/test';
+import { readCsv, download, close4 } from './csv.helpers';
+import { readSI } from './journeys.helpers';
 
 // The caution text as the engine writes it (src/lib/safety/cautions.ts); repeated here so the browser
 // test checks the visible text, not a value it reads back from the app.
@@ -112,6 +114,31 @@ test('further lines are combined per tissue; skin and eyewear per rule are shown
 	await expect(combined).toContainText('retina');
 	await expect(combined).toContainText('cornea and lens');
 	await expect(combined).toContainText('skin');
+	// The lines save as CSV: one row per line and one per tissue combined, as the tables show them.
+	const lines = await readCsv(await download(page, 'hz-lines-csv'));
+	expect(lines.header.join('\n')).toContain('First-pass estimate, not a hazard evaluation.');
+	const cells = (id: string) => page.getByTestId(id).locator('tbody tr').evaluateAll((trs) => trs.map((tr) => [...tr.querySelectorAll('td')].map((td) => (td as HTMLElement).innerText.trim())));
+	const lineRows = lines.rows.filter((r) => r[0] === 'line');
+	const shownLines = await cells('hz-lines-table');
+	expect(lineRows.length).toBe(shownLines.length);
+	expect(lineRows.length).toBe(3);
+	lineRows.forEach((r, i) => {
+		const t = shownLines[i];
+		close4(Number(r[lines.col('wavelength_nm')]) * 1e-9, readSI(t[0].replace(/^main: /, ''), 'nm') * 1e-9);
+		close4(Number(r[lines.col('power_W')]), readSI(t[1], 'W'));
+		expect(r[lines.col('tissue')]).toBe(t[2]);
+		close4(Number(r[lines.col('limit_W_m2')]), readSI(t[3].split(' (')[0], 'W/m²'));
+		close4(Number(r[lines.col('hazard_distance_m')]), readSI(t[4]));
+		expect(t[5]).toBe(`${+Number(r[lines.col('od_required')]).toPrecision(3)} → ${r[lines.col('od_whole')]}`);
+		if (t[6] === 'not evaluated') expect(r[lines.col('skin_hazard_distance_m')]).toBe('');
+		else close4(Number(r[lines.col('skin_hazard_distance_m')]), readSI(t[6]));
+		expect(r[lines.col('provenance')].startsWith(t[7] === 'read' ? 'read from' : 'recalled')).toBe(true);
+		expect(r[lines.col('limit_source')]).not.toBe('');
+	});
+	const combinedRows = lines.rows.filter((r) => r[0] === 'combined');
+	const shownCombined = await cells('hz-lines-combined');
+	expect(combinedRows.map((r) => r[1])).toEqual(shownCombined.map((t) => t[0]));
+	combinedRows.forEach((r, i) => close4(Number(r[lines.col('hazard_distance_m')]), readSI(shownCombined[i][3])));
 	await page.getByTestId('hz-lines-input').fill('1064 nm 50 mW');
 	await expect(page.getByTestId('hz-lines-error')).toContainText('Further lines, entry 1 "1064 nm 50 mW": not WAVELENGTH: POWER');
 	await expect(page.getByTestId('hz-lines-input')).toHaveValue('1064 nm 50 mW');

@@ -5,6 +5,8 @@
  * (ISO 11146-1:2005, clauses 3 and 9; from memory), so the fit must return d0, z0 and M².
  */
 import { test, expect, type Page } from '@playwright/test';
+import { readCsv, download } from './csv.helpers';
+import { readSI } from './journeys.helpers';
 
 const lam = 1064e-9;
 function caustic(d0: number, z0: number, m2: number, z: number) {
@@ -136,6 +138,21 @@ test('knife-edge scans: the fitted radius is shown and the widths join the table
 	await expect(cards.nth(0).getByTestId('knife-w')).toContainText('µm');
 	expect(Math.abs((await lead(cards.nth(0).getByTestId('knife-w'))) - 800)).toBeLessThan(1);
 	expect(Math.abs((await lead(cards.nth(0).getByTestId('knife-d'))) - 1.6)).toBeLessThan(0.005);
+	// The scan fits save as CSV with the numbers shown (mm in the file; µm / mm on the page).
+	await expect(cards.nth(1).getByTestId('knife-w')).toContainText('µm');
+	const fits = await readCsv(await download(page, 'knife-csv'));
+	expect(fits.rows.map((r) => [r[0], r[1], r[fits.col('z_mm')]])).toEqual([['1', 'x', '100'], ['2', 'y', '100']]);
+	// "800.0 ± 0.6 µm": the file's value must round to the digits shown.
+	const agrees = (file_mm: number, shown: string) => {
+		const m = /^(−?[\d.]+) ± <?([\d.×^−]+) (\S+)$/.exec(shown.trim())!;
+		expect(m, shown).not.toBeNull();
+		const half = 0.5 * 10 ** -(m[1].split('.')[1] ?? '').length;
+		expect(Math.abs(file_mm * 1e-3 - readSI(`${m[1]} ${m[3]}`))).toBeLessThanOrEqual(half * readSI(`1 ${m[3]}`) * 1.001);
+	};
+	for (const i of [0, 1]) {
+		agrees(Number(fits.rows[i][fits.col('w_mm')]), await cards.nth(i).getByTestId('knife-w').innerText());
+		agrees(Number(fits.rows[i][fits.col('d_mm')]), await cards.nth(i).getByTestId('knife-d').innerText());
+	}
 	await page.getByTestId('knife-to-table').click();
 	await expect(page.getByTestId('knife-message')).toContainText('Added 2 scan widths');
 	const table = await page.getByTestId('widths-input').inputValue();

@@ -1,14 +1,7 @@
-import { test, expect, type Page, type Download } from '@playwright/test';
+import { test, expect } from '@playwright/test';
 import { readFileSync } from 'node:fs';
-import Papa from 'papaparse';
-
-/** Read a downloaded CSV: the commented header lines and the rows (first row = column names). */
-async function readCsv(d: Download) {
-	const text = readFileSync((await d.path())!, 'utf8');
-	const header = text.split(/\r?\n/).filter((l) => l.startsWith('#'));
-	const rows = Papa.parse<string[]>(text, { comments: '#', skipEmptyLines: true }).data;
-	return { text, header, cols: rows[0], rows: rows.slice(1) };
-}
+import { readCsv, download, close4 } from './csv.helpers';
+import { readSI } from './journeys.helpers';
 
 /** "125.6 µm" / "1.163 m" / "37.27 mm" → metres. */
 function metres(s: string): number {
@@ -16,15 +9,6 @@ function metres(s: string): number {
 	if (!m) throw new Error(`not a length: "${s}"`);
 	return Number(m[1]) * { nm: 1e-9, µm: 1e-6, mm: 1e-3, m: 1, km: 1e3 }[m[2] as 'm'];
 }
-/** Page values are shown to 4 significant digits. */
-const close4 = (a: number, b: number) => expect(Math.abs(a - b) / Math.abs(b)).toBeLessThan(6e-4);
-
-async function download(page: Page, testid: string) {
-	const d = page.waitForEvent('download');
-	await page.getByTestId(testid).click();
-	return d;
-}
-
 test.beforeEach(async ({ page }) => {
 	await page.goto('/');
 	await page.evaluate(() => localStorage.clear());
@@ -188,6 +172,37 @@ test('Match: focus lands on the results; the ranked solutions save as CSV with t
 		close4(Number(r[col('lens1_f_mm')]) / 1000, metres(m[1].replace('−', '-')));
 		close4(Number(r[col('lens1_z_mm')]) / 1000, metres(m[2]));
 	});
+	// The exact single lenses save as CSV with the numbers of their table.
+	const single = await readCsv(await download(page, 'single-lens-csv'));
+	expect(single.cols).toEqual(['axis', 'f_mm', 'z_mm', 'on_rail']);
+	const singleShown = await page.getByTestId('single-lens').locator('tbody tr').evaluateAll((trs) => trs.map((tr) => [...tr.querySelectorAll('td')].map((td) => (td as HTMLElement).innerText.trim())));
+	expect(single.rows.length).toBe(singleShown.length);
+	expect(single.rows.length).toBeGreaterThan(0);
+	single.rows.forEach((r, i) => {
+		const t = singleShown[i];
+		expect(t[0]).toContain(r[0]);
+		if (t.length === 2) return expect(r[3]).toMatch(/^none/);
+		close4(Number(r[1]) / 1000, readSI(t[1]));
+		expect(Math.abs(Number(r[2]) - Number(t[2].replace(/ mm$/, '')))).toBeLessThanOrEqual(0.005);
+		expect(t[3].startsWith(r[3])).toBe(true);
+	});
+	// The rail sketch saves as SVG and PNG with its labels, the setup name, the date and the lens list.
+	const sketch = page.getByTestId('rail-sketch');
+	const sketchSvg = readFileSync((await (await download(page, 'rail-sketch-svg')).path())!, 'utf8');
+	expect(sketchSvg).toContain('Rail sketch of solution 1 — Demo lab, bench 2');
+	expect(sketchSvg).toMatch(/exported \d{4}-\d\d-\d\d \d\d:\d\d UTC/);
+	for (const label of await sketch.locator('svg text').allTextContents()) expect(sketchSvg).toContain(label.trim());
+	const firstLens = shown[0][1].split('\n')[0].match(/: (−?[\d.]+ m?m) at ([\d.]+ m?m)/)!;
+	const inFile = /L1: f = (−?[\d.]+ m?m) at z = ([\d.]+ m?m)/.exec(sketchSvg)!;
+	expect(inFile).not.toBeNull();
+	close4(metres(inFile[1].replace('−', '-')), metres(firstLens[1].replace('−', '-')));
+	expect(Math.abs(metres(inFile[2]) - metres(firstLens[2]))).toBeLessThanOrEqual(5e-6);
+	expect(sketchSvg).toContain('converging lens');
+	expect(sketchSvg).not.toMatch(/NaN|Infinity|undefined|var\(--/);
+	const sketchPng = readFileSync((await (await download(page, 'rail-sketch-png')).path())!);
+	expect([...sketchPng.subarray(0, 8)]).toEqual([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
+	const sbox = (await sketch.locator('svg').first().boundingBox())!;
+	expect(sketchPng.readUInt32BE(16)).toBe(2 * Math.ceil(sbox.width));
 });
 
 test('Match: an expander goes on the bench with its spacing, and the expander table saves as CSV', async ({ page }) => {
@@ -226,4 +241,35 @@ test('Hazard: the exposure plot saves as SVG with the caution and the limit sour
 	const inPlot = /NOHD ([\d.]+) (m|km)/.exec(svg);
 	expect(inPlot).not.toBeNull();
 	close4(metres(`${inPlot![1]} ${inPlot![2]}`), metres(nohd.replace(/^beyond /, '')));
+
+	// The result tables save as CSV: the caution in the header, every number as the page shows it, and
+	// each value beside the source and provenance of the limit it rests on.
+	const res = await readCsv(await download(page, 'hz-results-csv'));
+	expect(res.cols).toEqual(['section', 'quantity', 'value', 'unit', 'basis', 'limit_source', 'provenance']);
+	const head = res.header.join('\n');
+	expect(head).toContain('First-pass estimate, not a hazard evaluation.');
+	expect(head).toContain("The applicable standard, local regulations and the site's laser safety officer decide.");
+	expect(head).toMatch(/value: the number, in the unit of the next column/);
+	expect(res.text).not.toMatch(/NaN|Infinity|undefined/);
+	const row = (q: string) => {
+		const r = res.rows.find((r) => r[1] === q);
+		expect(r, `row "${q}"`).toBeDefined();
+		return r!;
+	};
+	const shown = async (id: string) => (await page.getByTestId(id).innerText()).trim();
+	const limit = row('limit as irradiance');
+	expect(limit[3]).toBe('W/m²');
+	close4(Number(limit[2]), readSI((await shown('hz-mpe-E')).split(' (')[0], 'W/m²'));
+	close4(Number(row('NOHD, far-field formula')[2]), readSI(await shown('hz-nohd-formula')));
+	close4(Number(row('NOHD along the beam (aperture-averaged)')[2]), readSI(nohd.replace(/^beyond /, '')));
+	close4(Number(row('hazard distance used (the larger)')[2]), readSI((await shown('hz-hazard-distance')).split(' — ')[0]));
+	const od = /OD ([\d.]+) → at least OD (\d+)/.exec(await shown('hz-od'))!;
+	expect(Math.abs(Number(row('optical density required')[2]) - Number(od[1]))).toBeLessThanOrEqual(0.005 * Number(od[1]));
+	expect(row('optical density, rounded up')[2]).toBe(od[2]);
+	close4(Number(row('nominal skin hazard distance')[2]), readSI(await shown('hz-nshd')));
+	close4(Number(row('skin limit as irradiance')[2]), readSI((await shown('hz-skin-E')).split(' (')[0], 'W/m²'));
+	// Eye rows carry the limit's table row and source as the page shows it; every row has one.
+	expect(limit[5]).toBe(await shown('hz-limit-source'));
+	expect(limit[6]).toMatch(/^read from the published text/);
+	for (const r of res.rows) expect(r[5], `limit source of "${r[1]}"`).not.toBe('');
 });

@@ -1,4 +1,6 @@
 import { test, expect, type Page } from '@playwright/test';
+import { readCsv, download, close4 } from './csv.helpers';
+import { readSI } from './journeys.helpers';
 
 async function expectNoBrokenNumbers(page: Page) {
 	// Messages may quote what the user typed; everything else must be a real number.
@@ -29,6 +31,17 @@ test('journey: match into the demo cavity, put on the bench, perturb by a known 
 	// The solution put on the bench carries most of the power in TEM00 (the demo laser's M² > 1 leaves some mismatch).
 	const p00 = Number(await page.getByTestId('mode-peak-00').getAttribute('data-value'));
 	expect(p00).toBeGreaterThan(80);
+	// The mode table saves as CSV with the heights the table holds.
+	const modes = await readCsv(await download(page, 'mode-csv'));
+	expect(modes.cols).toEqual(['mode', 'm', 'n', 'power_percent', 'peak_height_percent', 'position_Hz']);
+	const modeRows = await page.getByTestId('mode-table').locator('tbody tr').evaluateAll((trs) => trs.map((tr) => [...tr.querySelectorAll('td')].map((td) => (td as HTMLElement).innerText.trim())));
+	expect(modes.rows.map((r) => r[0])).toEqual(modeRows.map((t) => t[0]));
+	close4(Number(modes.rows.find((r) => r[0] === 'TEM00')![modes.col('peak_height_percent')]), p00);
+	modes.rows.forEach((r, i) => {
+		close4(Number(r[modes.col('power_percent')]), Number(modeRows[i][1].replace(/ %$/, '')));
+		close4(Number(r[modes.col('peak_height_percent')]), Number(modeRows[i][2]));
+		if (Number(r[modes.col('position_Hz')]) !== 0) close4(Number(r[modes.col('position_Hz')]), readSI(modeRows[i][3], 'Hz'));
+	});
 
 	// A known offset of 40 µm at the cavity waist, horizontal.
 	await page.getByTestId('perturb-offset-x').fill('40 µm');

@@ -57,6 +57,8 @@ export function standaloneSvg(svg: SVGSVGElement, header: PlotHeader): { text: s
 			if (v) style.push(`${p}:${v}`);
 		}
 		el.setAttribute('style', style.join(';'));
+		// A theme variable in a presentation attribute means nothing outside the page; the style holds its value.
+		for (const a of ['fill', 'stroke', 'color']) if (el.getAttribute(a)?.includes('var(')) el.removeAttribute(a);
 		el.removeAttribute('class');
 		el.removeAttribute('tabindex');
 		el.removeAttribute('role');
@@ -67,13 +69,17 @@ export function standaloneSvg(svg: SVGSVGElement, header: PlotHeader): { text: s
 	const font = root.fontFamily;
 	const date = (header.date ?? new Date()).toISOString().slice(0, 16).replace('T', ' ') + ' UTC';
 	const inner = copy.innerHTML;
+	const viewBox = svg.getAttribute('viewBox');
 	const text =
 		`<?xml version="1.0" encoding="UTF-8"?>\n` +
 		`<svg xmlns="http://www.w3.org/2000/svg" width="${width}" height="${height}" viewBox="0 0 ${width} ${height}" font-family="${esc(font)}">` +
 		`<rect width="100%" height="100%" fill="${esc(bg)}"/>` +
 		`<text x="12" y="20" font-size="15" font-weight="700" fill="${esc(fg)}">${esc(header.title)} — ${esc(header.setup)}</text>` +
 		`<text x="12" y="37" font-size="12" fill="${esc(fg)}">Beamwright · exported ${esc(date)}</text>` +
-		`<g transform="translate(0,${band})">${inner}</g>` +
+		// A drawing scaled by its viewBox keeps that scaling in the file (nested svg at the drawn size).
+		(viewBox
+			? `<svg x="0" y="${band}" width="${width}" height="${plotH}" viewBox="${esc(viewBox)}" preserveAspectRatio="${esc(svg.getAttribute('preserveAspectRatio') ?? 'xMidYMid meet')}" overflow="visible">${inner}</svg>`
+			: `<g transform="translate(0,${band})">${inner}</g>`) +
 		footer.map((line, i) => `<text x="12" y="${band + plotH + 18 + i * 16}" font-size="12" fill="${esc(fg)}">${esc(line)}</text>`).join('') +
 		`</svg>`;
 	return { text, width, height };
