@@ -264,11 +264,22 @@ test('(g) a reload in the middle of editing loses nothing', async ({ page }) => 
 	await page.getByTestId('m-wavelength').fill('600 nm');
 	await openWorkspace(page, 'Bench');
 	await openElement(page, 'L1');
-	await page.getByTestId('el-L1-f').fill('120 mm');
+	// A bare number is read in the unit shown beside the field (mm, the unit of "200 mm").
+	const f = page.getByTestId('el-L1-f');
+	const fUnit = page.getByTestId('el-L1-f-unit');
+	await expect(fUnit).toHaveValue('mm');
+	await f.fill('120');
+	// Another unit rewrites the number shown; the setup keeps 120 mm.
+	await fUnit.selectOption('µm');
+	await expect(f).toHaveValue('120000');
+	await fUnit.focus(); // keyboard reachable
 	await page.reload(); // at once, inside the autosave delay
 	await expect(page.getByTestId('caustic-plot')).toBeVisible();
 	const out = thinLens(0.5e-3, 0.1, rayleigh(0.5e-3, HeNe), 0.12);
 	await expectWaistAfter(page, 'L1', 0.1 + out.s_m, out.w0_m);
+	await openElement(page, 'L1');
+	await expect(f).toHaveValue('120 mm');
+	await expect(fUnit).toHaveValue('mm');
 	await openWorkspace(page, 'Measure');
 	await expect(page.getByTestId('m-wavelength')).toHaveValue('600 nm');
 	await expect(page.getByTestId('m-wavelength-differs')).toContainText('632.8 nm');
