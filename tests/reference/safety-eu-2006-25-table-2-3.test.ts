@@ -157,3 +157,28 @@ describe(`${T22}, row 2600 nm–1 mm, column 10⁻⁷–10 s (printed damaged in
 		}
 	});
 });
+
+describe(`${T23}, row 700–1400 nm, α > 1.5 mrad, t > T_2 (recalled): the stricter remembered printing, "E = 18 C_A C_C C_E T_2^−0.25 W m⁻² (not to exceed 1000 W m⁻²)"`, () => {
+	// Table 2.5 (read): C_E = α/α_min to 100 mrad (α = 100 mrad: C_E = 100/1.5), T_2 = 100 s from 100 mrad; C_A = 5 and C_C = 8 at 1300 nm.
+	it('1300 nm, α = 100 mrad, 1000 s: 18·5·8·(100/1.5)·100^−0.25 = 15.18 kW/m² is capped at 1000 W/m²', () => {
+		const uncapped = 18 * 5 * 8 * (100 / 1.5) * 100 ** -0.25;
+		expectClose(uncapped, 15179.3, 1e-4);
+		const r = H(1300, 1000, 0.1);
+		expect(r.row.rowId).toBe('thermal-long-700-ext-T2');
+		expectClose(r.irradiance_W_m2, 1000, 1e-12);
+		expect(r.row.source).toMatch(/not to exceed 1000 W m⁻²/);
+	});
+	it('808 nm, α = 10 mrad, 1000 s: 18·C_A·(10/1.5)·T_2^−0.25 with T_2 = 10·10^(8.5/98.5) s = 105.6 W/m², below the cap, unchanged', () => {
+		const T2 = 10 * 10 ** (8.5 / 98.5);
+		const E = 18 * CA(808) * (10 / 1.5) * T2 ** -0.25;
+		expectClose(E, 105.6, 1e-3);
+		const r = H(808, 1000, 0.01);
+		expect(r.row.rowId).toBe('thermal-long-700-ext-T2');
+		expectClose(r.irradiance_W_m2, E, 1e-12);
+	});
+	it('the cap never lifts a limit: at 1064 nm, α = 50 mrad, 10³–3·10⁴ s the limit is min(18·C_A·C_C·C_E·T_2^−0.25, 1000) W/m²', () => {
+		const T2 = 10 * 10 ** (48.5 / 98.5);
+		const E = Math.min(18 * 5 * CC(1064) * (50 / 1.5) * T2 ** -0.25, 1000);
+		for (const t of [1e3, 1e4, 3e4]) expectClose(H(1064, t, 0.05).irradiance_W_m2, E, 1e-12);
+	});
+});

@@ -142,8 +142,9 @@ const longRetinalRows: LimitRow[] = [
 		condition: 'α > 1.5 mrad, t ≤ T_2', when: extendedUpToT2, expression: 'H = 18·C_A·C_C·C_E·t^0.75 J/m²', value: ({ t_s, f }) => 18 * f.CA * f.CC * f.CE * t_s ** 0.75,
 		source: `${T23}, row 700–1400 nm, α > 1.5 mrad and t ≤ T_2${t23Mem(joins('rows 700–1050 and 1050–1400 nm', 'the same forms (18·C_A = 90 from 1050 nm) continued to T_2'))}`, provenance: RECALLED }),
 	row({ id: 'thermal-long-700-ext-T2', targets: EYE, wavelength_nm: [700, 1400], duration_s: [10, 3e4], mechanism: 'thermal', kind: 'irradiance', uses: ['CA', 'CC', 'CE', 'T2_s'],
-		condition: 'α > 1.5 mrad, t > T_2', when: extendedAfterT2, expression: 'E = 18·C_A·C_C·C_E·T_2^−0.25 W/m²', value: ({ f }) => 18 * f.CA * f.CC * f.CE * f.T2_s ** -0.25,
-		source: `${T23}, row 700–1400 nm, α > 1.5 mrad and t > T_2${t23Mem('Check: 18·C_A·C_C·C_E·T_2^−0.25 W/m² is the average of 18·C_A·C_C·C_E·T_2^0.75 J/m² over T_2, so it joins the t ≤ T_2 form at T_2.')}`, provenance: RECALLED })
+		condition: 'α > 1.5 mrad, t > T_2', when: extendedAfterT2, expression: 'E = 18·C_A·C_C·C_E·T_2^−0.25 W/m², not to exceed 1000 W/m²',
+		value: ({ f }) => Math.min(18 * f.CA * f.CC * f.CE * f.T2_s ** -0.25, 1000),
+		source: `${T23}, row 700–1400 nm, α > 1.5 mrad and t > T_2${t23Mem('Two printings are remembered for this cell, one with "(not to exceed 1000 W m⁻²)" after the expression and one without; the stricter, with the cap, is used (it limits large sources from about 1150 nm, e.g. 1300 nm, α = 100 mrad: 15.2 kW/m² uncapped). Check: 18·C_A·C_C·C_E·T_2^−0.25 W/m² is the average of 18·C_A·C_C·C_E·T_2^0.75 J/m² over T_2, so where the cap does not act it joins the t ≤ T_2 form at T_2.')}`, provenance: RECALLED })
 ];
 
 
