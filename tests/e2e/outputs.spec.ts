@@ -26,8 +26,7 @@ async function download(page: Page, testid: string) {
 }
 
 test.beforeEach(async ({ page }) => {
-	await page.goto('/');
-	await page.evaluate(() => localStorage.clear());
+	// A fresh context per test: storage starts empty, so one load shows the demo setup.
 	await page.goto('/');
 	await expect(page.getByTestId('caustic-plot')).toBeVisible();
 });
