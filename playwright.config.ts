@@ -1,7 +1,6 @@
 import { defineConfig } from '@playwright/test';
-import { existsSync } from 'node:fs';
+import { chromiumLaunch } from './tests/e2e/support/chromium';
 
-const debianChromium = '/usr/bin/chromium';
 // Port of the test server; set BW_E2E_PORT to run several checkouts side by side.
 const port = Number(process.env.BW_E2E_PORT ?? 4317);
 
@@ -19,17 +18,10 @@ export default defineConfig({
 		reuseExistingServer: !process.env.CI
 	},
 	use: {
+		// Each test is a fresh browser context; a service worker installing there would download and
+		// cache the whole build every time. Only the specs about offline use and updates allow it.
+		serviceWorkers: 'block',
 		baseURL: `http://localhost:${port}`,
-		launchOptions: {
-			executablePath: existsSync(debianChromium) ? debianChromium : undefined,
-			args: [
-				'--no-sandbox',
-				'--disable-gpu',
-				'--disable-background-networking',
-				'--disable-component-update',
-				'--disable-sync',
-				'--no-first-run'
-			]
-		}
+		launchOptions: chromiumLaunch()
 	}
 });

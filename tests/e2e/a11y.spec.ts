@@ -15,11 +15,9 @@ const pages = [
 ];
 
 async function open(page: Page, path: string, theme: 'light' | 'dark', ready: string | null) {
-	await page.goto(path);
-	await page.evaluate((t) => {
-		localStorage.clear();
-		localStorage.setItem('beamwright.theme', t);
-	}, theme);
+	// Each test starts with empty storage (a fresh context); the theme is chosen before the page's own
+	// scripts run, so one load is enough.
+	await page.addInitScript((t) => localStorage.setItem('beamwright.theme', t), theme);
 	await page.goto(path);
 	await page.evaluate((t) => (document.documentElement.dataset.theme = t), theme);
 	if (ready) await expect(page.getByTestId(ready)).toBeVisible();

@@ -16,8 +16,7 @@ async function expectNoBrokenNumbers(page: Page) {
 }
 
 test.beforeEach(async ({ page }) => {
-	await page.goto('/hazard/');
-	await page.evaluate(() => localStorage.clear());
+	// A fresh context per test: storage starts empty, so one load shows the demo setup.
 	await page.goto('/hazard/');
 	await expect(page.getByTestId('hz-results')).toBeVisible();
 });

@@ -222,9 +222,7 @@ test('(e) Hazard from the bench beam follows bench edits, and its summary prints
 });
 
 test('(f) New whole setup: every workspace is empty; New bench only keeps the others', async ({ page }) => {
-	await page.goto('/');
-	await page.evaluate(() => localStorage.clear());
-	await page.goto('/'); // the demo setup, with its shelf, keep-out zone, laser name and widths
+	await page.goto('/'); // fresh context, empty storage: the demo setup, with its shelf, keep-out zone, laser name and widths
 	await page.getByTestId('new').click();
 	await page.getByTestId('new-bench').click();
 	await expect(page.getByTestId('element-table')).toContainText('No elements.');

@@ -10,10 +10,11 @@
  * clauses 3 and 9; from memory).
  */
 import { test, expect, type Page } from '@playwright/test';
-import { existsSync, mkdtempSync } from 'node:fs';
+import { mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { writeBeamY4m, type BeamFrameSpec } from './support/y4m';
+import { chromiumLaunch } from './support/chromium';
 
 const dir = mkdtempSync(join(tmpdir(), 'bw-cam-'));
 const video = join(dir, 'camera.y4m');
@@ -24,22 +25,8 @@ const pitch_m = 5e-6;
 const base: BeamFrameSpec = { width: W, height: H, frames: 6, wa_px: 60, wb_px: 36, angle_rad: (20 * Math.PI) / 180, cx: 310, cy: 245, drift_px: 0.5, background: 40, peak: 170, noise: 1.5 };
 writeBeamY4m(video, base);
 
-const debianChromium = '/usr/bin/chromium';
 test.use({
-	launchOptions: {
-		executablePath: existsSync(debianChromium) ? debianChromium : undefined,
-		args: [
-			'--no-sandbox',
-			'--disable-gpu',
-			'--disable-background-networking',
-			'--disable-component-update',
-			'--disable-sync',
-			'--no-first-run',
-			'--use-fake-device-for-media-stream',
-			'--use-fake-ui-for-media-stream',
-			`--use-file-for-fake-video-capture=${video}`
-		]
-	}
+	launchOptions: chromiumLaunch(['--use-fake-device-for-media-stream', '--use-fake-ui-for-media-stream', `--use-file-for-fake-video-capture=${video}`])
 });
 // One file feeds the camera, so the tests of this file take turns.
 test.describe.configure({ mode: 'serial' });
@@ -52,9 +39,7 @@ function metres(text: string): number {
 }
 
 async function openLive(page: Page, beam = true, pitch = '5 um') {
-	await page.goto('/measure/');
-	await page.evaluate(() => localStorage.clear());
-	await page.goto('/measure/');
+	await page.goto('/measure/'); // fresh context per test: empty storage
 	await page.getByTestId('pixel-pitch').fill(pitch);
 	await page.getByTestId('live-open').click();
 	await page.getByTestId('live-start').click();

@@ -7,8 +7,7 @@ async function expectNoBrokenNumbers(page: Page) {
 }
 
 test.beforeEach(async ({ page }) => {
-	await page.goto('/match/');
-	await page.evaluate(() => localStorage.clear());
+	// A fresh context per test: storage starts empty, so one load shows the demo setup.
 	await page.goto('/match/');
 	await expect(page.getByRole('heading', { name: '2 · Target' })).toBeVisible();
 });

@@ -31,8 +31,7 @@ async function expectNoBrokenNumbers(page: Page) {
 }
 
 test.beforeEach(async ({ page }) => {
-	await page.goto('/measure/');
-	await page.evaluate(() => localStorage.clear());
+	// A fresh context per test: storage starts empty, so one load shows the demo setup.
 	await page.goto('/measure/');
 	await expect(page.getByTestId('widths-input')).toBeVisible();
 });

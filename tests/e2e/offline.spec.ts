@@ -1,14 +1,11 @@
 import { test, expect } from '@playwright/test';
+import { openUnderServiceWorker } from './support/sw';
+
+// The service worker is what this file tests (the other specs block it).
+test.use({ serviceWorkers: 'allow' });
 
 test('after one visit the app opens and computes with no network', async ({ page, context }) => {
-	await page.goto('/');
-	await expect(page.getByTestId('caustic-plot')).toBeVisible();
-	// Wait until the service worker has cached the build and controls the page.
-	await page.evaluate(async () => {
-		await navigator.serviceWorker.ready;
-	});
-	await page.reload();
-	await expect.poll(() => page.evaluate(() => navigator.serviceWorker.controller !== null)).toBe(true);
+	await openUnderServiceWorker(page);
 	await context.setOffline(true);
 	await page.reload();
 	await expect(page.getByTestId('caustic-plot')).toBeVisible();

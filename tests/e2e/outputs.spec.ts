@@ -10,8 +10,7 @@ function metres(s: string): number {
 	return Number(m[1]) * { nm: 1e-9, µm: 1e-6, mm: 1e-3, m: 1, km: 1e3 }[m[2] as 'm'];
 }
 test.beforeEach(async ({ page }) => {
-	await page.goto('/');
-	await page.evaluate(() => localStorage.clear());
+	// A fresh context per test: storage starts empty, so one load shows the demo setup.
 	await page.goto('/');
 	await expect(page.getByTestId('caustic-plot')).toBeVisible();
 });

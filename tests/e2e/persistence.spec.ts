@@ -4,6 +4,7 @@
  */
 import { test, expect, type Page } from '@playwright/test';
 import { readFileSync, writeFileSync } from 'node:fs';
+import { openUnderServiceWorker } from './support/sw';
 
 const KEY = 'beamwright.setup.v1';
 
@@ -135,33 +136,31 @@ test('the lab table export re-imports to the same lasers; a refused import leave
 	await expect(rows).toHaveCount(8);
 });
 
-test('a new build: the user is told a new version is ready and can reload onto it', async ({ page, context }) => {
-	await page.goto('/');
-	await expect(page.getByTestId('caustic-plot')).toBeVisible();
-	await page.evaluate(async () => {
-		await navigator.serviceWorker.ready;
-	});
-	await page.reload();
-	await expect.poll(() => page.evaluate(() => navigator.serviceWorker.controller !== null)).toBe(true);
-	await expect(page.getByTestId('update-ready')).toHaveCount(0);
-	// The next build: the served service worker changes (as after a deploy); restored afterwards.
-	const swFile = 'build/service-worker.js';
-	const original = readFileSync(swFile, 'utf8');
-	try {
-		writeFileSync(swFile, original + '\n// next build\n');
-		await page.evaluate(async () => {
-			const reg = await navigator.serviceWorker.getRegistration();
-			await reg?.update();
-		});
-		await expect(page.getByTestId('update-ready')).toContainText('A new version of Beamwright is ready', { timeout: 20_000 });
-		// The page is not switched under the user: they choose when to reload.
-		await page.getByTestId('update-reload').click();
-		await page.waitForEvent('load');
-		await expect(page.getByTestId('caustic-plot')).toBeVisible();
+test.describe('with the service worker (blocked in the other specs)', () => {
+	test.use({ serviceWorkers: 'allow' });
+
+	test('a new build: the user is told a new version is ready and can reload onto it', async ({ page, context }) => {
+		await openUnderServiceWorker(page);
 		await expect(page.getByTestId('update-ready')).toHaveCount(0);
-	} finally {
-		writeFileSync(swFile, original);
-	}
+		// The next build: the served service worker changes (as after a deploy); restored afterwards.
+		const swFile = 'build/service-worker.js';
+		const original = readFileSync(swFile, 'utf8');
+		try {
+			writeFileSync(swFile, original + '\n// next build\n');
+			await page.evaluate(async () => {
+				const reg = await navigator.serviceWorker.getRegistration();
+				await reg?.update();
+			});
+			await expect(page.getByTestId('update-ready')).toContainText('A new version of Beamwright is ready', { timeout: 20_000 });
+			// The page is not switched under the user: they choose when to reload.
+			await page.getByTestId('update-reload').click();
+			await page.waitForEvent('load');
+			await expect(page.getByTestId('caustic-plot')).toBeVisible();
+			await expect(page.getByTestId('update-ready')).toHaveCount(0);
+		} finally {
+			writeFileSync(swFile, original);
+		}
+	});
 });
 
 test('an image that declares 60000 × 60000 pixels is refused at once; the other images are analysed', async ({ page }) => {
