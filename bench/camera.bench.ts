@@ -13,7 +13,7 @@ import { join } from 'node:path';
 import { chromium } from '@playwright/test';
 import { erf, fitKnifeEdge } from '../src/lib/optics/iso11146/knifeEdge';
 import { writeBeamY4m } from '../tests/e2e/support/y4m';
-import { ratioRow, refRow, repeat, spread, timed, type Row } from './stats';
+import { momentLoop, ratioRow, refRow, repeat, spread, timed, type Row } from './stats';
 
 const PORT = 4319;
 
@@ -24,22 +24,6 @@ function knifeScan(n: number, seed: number) {
 		const x = -2.5e-3 + (5e-3 * i) / (n - 1);
 		return { x_m: x, P_W: 0.01 + 0.5 * (1 + erf((Math.SQRT2 * (x - 0.2e-3)) / 1e-3)) + rnd() };
 	});
-}
-
-function frameLoop(data: Uint8Array, W: number, H: number): number {
-	let s = 0, sx = 0, sy = 0, sxx = 0, syy = 0;
-	for (let y = 0; y < H; y++) {
-		const row = y * W;
-		for (let x = 0; x < W; x++) {
-			const v = data[row + x];
-			s += v;
-			sx += v * x;
-			sy += v * y;
-			sxx += v * x * x;
-			syy += v * y * y;
-		}
-	}
-	return sxx / s + syy / s - (sx / s) ** 2 - (sy / s) ** 2;
 }
 
 export async function run(): Promise<Row[]> {
@@ -66,7 +50,7 @@ export async function run(): Promise<Row[]> {
 	const video = join(dir, 'cam.y4m');
 	writeBeamY4m(video, { width: 1280, height: 720, frames: 8, fps: 30, wa_px: 90, wb_px: 60, angle_rad: 0.3, cx: 640, cy: 360, drift_px: 0.5, background: 40, peak: 170, noise: 1.5 });
 	const frame = new Uint8Array(1280 * 720).map((_, i) => (i * 7919) % 251);
-	const refFrame = repeat(() => timed(() => frameLoop(frame, 1280, 720)));
+	const refFrame = repeat(() => timed(() => momentLoop(frame, 1280, 720)));
 	const server = spawn(process.execPath, ['scripts/serve.js', '--port', String(PORT), '--quiet'], { stdio: 'ignore' });
 	await new Promise((r) => setTimeout(r, 500));
 	const browser = await chromium.launch({

@@ -2,7 +2,8 @@
  * CLI start-up: wall time of `npx beamwright beam …` next to `node -e 0` measured in the same run on the
  * same machine (each once to warm the file cache, then 10 times, min / median / max); goal ≤ 2.5 ×
  * `node -e 0`. Also the program alone (`node bin/beamwright.js beam …`, no npx in front), which shows
- * what the compiled CLI itself costs. Runs `npm run build:cli` first when dist/ is missing.
+ * what the compiled CLI itself costs, and `npx` running `node -e 0` (npm's own start, which no package can
+ * shorten: the floor under any `npx <program>`). Runs `npm run build:cli` first when dist/ is missing.
  */
 import { spawnSync } from 'node:child_process';
 import { existsSync } from 'node:fs';
@@ -27,9 +28,12 @@ export async function run(): Promise<Row[]> {
 	const node = wall_ms(process.execPath, ['-e', '0']);
 	const npx = wall_ms('npx', ['--no', 'beamwright', ...beamArgs]);
 	const bin = wall_ms(process.execPath, ['bin/beamwright.js', ...beamArgs]);
+	const npxFloor = wall_ms('npx', ['--no', '--', 'node', '-e', '0']);
 	return [
 		refRow('`node -e 0` wall time (10 runs)', 'ms', node),
 		ratioRow('`npx beamwright beam …` wall time (10 runs)', 'ms', npx, 'node -e 0', node, 2.5),
-		ratioRow('`node bin/beamwright.js beam …` (no npx)', 'ms', bin, 'node -e 0', node, 2.5)
+		ratioRow('`node bin/beamwright.js beam …` (no npx)', 'ms', bin, 'node -e 0', node, 2.5),
+		ratioRow('`npx node -e 0` (npm start alone, the floor under any npx command)', 'ms', npxFloor, 'node -e 0', node, null),
+		ratioRow('`npx beamwright beam …` against `npx node -e 0`', 'ms', npx, 'npx node -e 0', npxFloor, null, false, 'what Beamwright adds over npm’s own start')
 	];
 }

@@ -1,12 +1,10 @@
 // Figures of the issues "Match and expand" and "Honest speed" (match): the search over invented shelves of
 // 10, 50, 100 and 200 lens types with 1, 2 and 3 lenses, for a round and an astigmatic beam. Each figure
-// is run once to warm up, then 6 times, and printed as min / median / max beside a hand-written tight loop
+// is run once to warm up, then REPS times (bench/stats.ts), and printed as min / median / max beside a hand-written tight loop
 // measured in the same run (the reference); goals are ratios to that reference. The growth exponent is
 // the least-squares slope of log(median time) against log(lens types) over 50, 100 and 200 types.
 import { searchMatches, waistTarget, type StockLens, type MatchProblem } from '../src/lib/optics/solve';
-import type { Row } from './stats';
-
-const REPS = 6;
+import { engineReferenceSpread, refRow, repeat, REPS, type Row } from './stats';
 
 /** An invented shelf of n lens types: a fifth diverging (−25 … −250 mm), the rest converging from 25 mm to 1 m (log-spaced). */
 export function shelf(n: number): StockLens[] {
@@ -31,50 +29,6 @@ export function problem(lensCount: number, types = 50, astigmatic = false): Matc
 		inventory: shelf(types),
 		constraints: { rail: { from_m: 0.05, to_m: 0.95 }, slots: [], keepOut: [], minSpacing_m: 0.02, lensCounts: [lensCount] }
 	};
-}
-
-/**
- * The reference: a hand-written tight loop of 10⁶ evaluations of the round three-lens coupling (q through
- * three thin lenses, then the overlap with the target), no search logic. Returns ms.
- */
-function referenceLoop(): { ms: number; check: number } {
-	const lam = 1064e-9;
-	const im0 = (Math.PI * 0.4e-3 * 0.4e-3) / lam;
-	const tIm = (Math.PI * 60e-6 * 60e-6) / lam;
-	const inv = [1 / 0.1, 1 / 0.2, 1 / 0.05];
-	const t0 = performance.now();
-	let acc = 0;
-	for (let k = 0; k < 1e6; k++) {
-		let re = 0.05;
-		let im = im0;
-		let prev = 0;
-		for (let i = 0; i < 3; i++) {
-			const z = 0.1 + 0.25 * i + (k % 97) * 1e-4;
-			re += z - prev;
-			prev = z;
-			const d = re * re + im * im;
-			const ur = re / d - inv[i];
-			const ui = -im / d;
-			const d2 = ur * ur + ui * ui;
-			re = ur / d2;
-			im = -ui / d2;
-		}
-		re += 1 - prev;
-		const d = re * re + im * im;
-		const a1r = im / d;
-		const a1i = re / d;
-		const a2r = 1 / tIm;
-		acc += (4 * a1r * a2r) / ((a1r + a2r) ** 2 + a1i * a1i);
-	}
-	return { ms: performance.now() - t0, check: acc };
-}
-
-function stats(fn: () => number): { min: number; med: number; max: number } {
-	fn(); // warm-up
-	const v: number[] = [];
-	for (let i = 0; i < REPS; i++) v.push(fn());
-	v.sort((a, b) => a - b);
-	return { min: v[0], med: (v[(REPS - 1) >> 1] + v[REPS >> 1]) / 2, max: v[REPS - 1] };
 }
 
 function timeSearch(p: MatchProblem): { ms: number; best: number } {
@@ -105,9 +59,8 @@ const GOAL_THREE_100 = 50;
 const GOAL_TWO_50 = 5;
 
 export async function run() {
-	const ref = stats(() => referenceLoop().ms);
-	const rows: Row[] = [];
-	rows.push({ figure: 'reference: tight loop, 10⁶ three-lens couplings', value: ref.med, min: ref.min, max: ref.max, unit: 'ms', goal: 'reference (same run)' });
+	const ref = engineReferenceSpread();
+	const rows: Row[] = [refRow('tight loop, 10⁶ three-lens couplings', 'ms', ref)];
 	const TYPES = [10, 50, 100, 200];
 	for (const astig of [false, true]) {
 		const kind = astig ? 'astigmatic' : 'round';
@@ -116,7 +69,7 @@ export async function run() {
 			for (const N of TYPES) {
 				const p = problem(n, N, astig);
 				let best = 0;
-				const s = stats(() => {
+				const s = repeat(() => {
 					const r = timeSearch(p);
 					best = r.best;
 					return r.ms;

@@ -11,25 +11,7 @@
 import { encode } from 'fast-png';
 import { beamMoments, makeBeamImage } from '../src/lib/optics/iso11146/index';
 import { decodeBeamPng } from '../src/lib/io/beamImage';
-import { ratioRow, refRow, repeat, timed, type Row } from './stats';
-
-function momentLoop(data: Uint16Array | Uint8Array, W: number, H: number): number {
-	let s = 0, sx = 0, sy = 0, sxx = 0, syy = 0, sxy = 0;
-	for (let y = 0; y < H; y++) {
-		const row = y * W;
-		for (let x = 0; x < W; x++) {
-			const v = data[row + x];
-			s += v;
-			sx += v * x;
-			sy += v * y;
-			sxx += v * x * x;
-			syy += v * y * y;
-			sxy += v * x * y;
-		}
-	}
-	const cx = sx / s, cy = sy / s;
-	return sxx / s - cx * cx + (syy / s - cy * cy) + (sxy / s - cx * cy);
-}
+import { momentLoop, ratioRow, refRow, repeat, timed, type Row } from './stats';
 
 export async function run(): Promise<Row[]> {
 	const img = makeBeamImage({

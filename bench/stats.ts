@@ -125,3 +125,26 @@ export function engineReference(): number {
 export function engineReferenceSpread(): Spread {
 	return repeat(engineReference);
 }
+
+/**
+ * The image reference: a hand-written tight loop over every pixel summing the first and second moments
+ * (one pass; no background, no integration area, no iteration). Returns a width-like number so the loop
+ * cannot be optimised away.
+ */
+export function momentLoop(data: Uint16Array | Uint8Array, W: number, H: number): number {
+	let s = 0, sx = 0, sy = 0, sxx = 0, syy = 0, sxy = 0;
+	for (let y = 0; y < H; y++) {
+		const row = y * W;
+		for (let x = 0; x < W; x++) {
+			const v = data[row + x];
+			s += v;
+			sx += v * x;
+			sy += v * y;
+			sxx += v * x * x;
+			syy += v * y * y;
+			sxy += v * x * y;
+		}
+	}
+	const cx = sx / s, cy = sy / s;
+	return sxx / s - cx * cx + (syy / s - cy * cy) + (sxy / s - cx * cy);
+}

@@ -31,6 +31,25 @@ describe('validateSetup', () => {
 		expect(!r2.ok && r2.reason).toMatch(/setup version 99 is newer/);
 	});
 
+	it('opens a version-1 file as version 2 with every field kept, and refuses versions it has no step for', () => {
+		// A version-1 file (before the cavity lab, substrate, knife-edge table, wavelength origin and extra lines).
+		const v1 = { ...clone(demoSetup()), version: 1 } as unknown as Record<string, unknown>;
+		delete v1.match;
+		delete v1.measure;
+		const r = validateSetup(v1);
+		expect(r.ok).toBe(true);
+		if (r.ok) {
+			expect(r.doc.version).toBe(2);
+			expect(r.doc.source).toEqual(demoSetup().source);
+			expect(r.doc.elements).toEqual(demoSetup().elements);
+			expect(r.doc.name).toBe(demoSetup().name);
+		}
+		const r0 = validateSetup({ ...demoSetup(), version: 0 });
+		expect(!r0.ok && r0.reason).toMatch(/setup version 0 is not one this Beamwright can read \(versions 1–2\)/);
+		const r3 = validateSetup({ ...demoSetup(), version: 3 });
+		expect(!r3.ok && r3.reason).toMatch(/setup version 3 is newer than this Beamwright understands \(2\)/);
+	});
+
 	it('names the path of a wrongly typed field', () => {
 		const d = clone(demoSetup()) as unknown as { source: { x: { waist: unknown } } };
 		d.source.x.waist = 0.5;

@@ -43,15 +43,21 @@ class QuotaStorage {
 
 afterEach(() => vi.useRealTimers());
 
+/** Two tabs on one storage: A saves first, then B's own save finds A's newer one (the conflict). */
+function tabsInConflict(nameA: string, nameB: string) {
+	const storage = new QuotaStorage();
+	const a = new SetupStore(storage);
+	const b = new SetupStore(storage);
+	a.update((d) => (d.name = nameA));
+	a.flush();
+	b.update((d) => (d.name = nameB));
+	b.flush();
+	return { storage, a, b };
+}
+
 describe('two tabs', () => {
 	it('a tab never writes over a newer save of another tab; it is told and chooses', () => {
-		const storage = new QuotaStorage();
-		const a = new SetupStore(storage);
-		const b = new SetupStore(storage);
-		a.update((d) => (d.name = 'from tab A'));
-		a.flush();
-		b.update((d) => (d.name = 'from tab B'));
-		b.flush();
+		const { storage, b } = tabsInConflict('from tab A', 'from tab B');
 		// B's save was refused: A's work is still in the slot, B knows why.
 		expect(JSON.parse(storage.getItem(STORAGE_KEY)!).name).toBe('from tab A');
 		expect(b.conflict).not.toBeNull();
@@ -72,13 +78,7 @@ describe('two tabs', () => {
 	});
 
 	it('taking the other tab\'s version replaces this one (Undo brings it back) and saving resumes', () => {
-		const storage = new QuotaStorage();
-		const a = new SetupStore(storage);
-		const b = new SetupStore(storage);
-		a.update((d) => (d.name = 'A'));
-		a.flush();
-		b.update((d) => (d.name = 'B'));
-		b.flush();
+		const { storage, b } = tabsInConflict('A', 'B');
 		expect(b.takeOtherVersion()).toEqual({ ok: true });
 		expect(b.doc.name).toBe('A');
 		b.update((d) => (d.name = 'B after taking A'));
@@ -91,13 +91,7 @@ describe('two tabs', () => {
 	});
 
 	it('read-only: the tab neither changes nor saves', () => {
-		const storage = new QuotaStorage();
-		const a = new SetupStore(storage);
-		const b = new SetupStore(storage);
-		a.update((d) => (d.name = 'A'));
-		a.flush();
-		b.update((d) => (d.name = 'B'));
-		b.flush();
+		const { storage, b } = tabsInConflict('A', 'B');
 		b.stayReadOnly();
 		b.update((d) => (d.name = 'B again'));
 		b.flush();

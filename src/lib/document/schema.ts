@@ -14,7 +14,33 @@ export const FORMAT = 'beamwright-setup';
 export const MAX_ELEMENTS = 1000;
 /** Largest setup text read (characters): files, autosave, share links. */
 export const MAX_SETUP_CHARS = 20_000_000;
-export const CURRENT_VERSION = 1;
+export const CURRENT_VERSION = 2;
+
+/**
+ * Migrations: `MIGRATIONS[k]` turns a version-k document into version k+1. Each new field or changed
+ * meaning gets a step here, so a file saved by an earlier Beamwright opens unchanged in meaning, and a
+ * file from a later one is refused (rather than read with its new fields silently dropped).
+ */
+const MIGRATIONS: Record<number, (doc: Record<string, unknown>) => Record<string, unknown>> = {
+	/**
+	 * Version 2 adds optional fields inside the workspace sections: `match.lab` (the cavity lab),
+	 * `match.target.substrate`, `measure.knife`, `measure.wavelengthFrom` and `safety.extraLines`.
+	 * A version-1 document has none of them; each reads as its default (no cavity lab, no substrate,
+	 * no knife-edge table, wavelength following the bench, a single laser line), so only the number changes.
+	 */
+	1: (doc) => ({ ...doc, version: 2 })
+};
+
+/** Bring an older document up to CURRENT_VERSION, one step at a time. */
+function migrate(obj: Record<string, unknown>): { ok: true; doc: Record<string, unknown> } | { ok: false; reason: string } {
+	let doc = obj;
+	while ((doc.version as number) < CURRENT_VERSION) {
+		const step = MIGRATIONS[doc.version as number];
+		if (!step) return { ok: false, reason: `setup version ${doc.version} is not one this Beamwright can read (versions 1–${CURRENT_VERSION})` };
+		doc = step(doc);
+	}
+	return { ok: true, doc };
+}
 
 const text = v.string();
 
@@ -81,6 +107,11 @@ export function validateSetup(value: unknown): { ok: true; doc: SetupDoc } | { o
 	if (obj.format !== FORMAT) return { ok: false, reason: `not a Beamwright setup (field "format" must be "${FORMAT}")` };
 	if (typeof obj.version !== 'number') return { ok: false, reason: 'field "version" is missing' };
 	if (obj.version > CURRENT_VERSION) return { ok: false, reason: `setup version ${obj.version} is newer than this Beamwright understands (${CURRENT_VERSION})` };
+	const migrated = migrate(obj);
+	return migrated.ok ? validateCurrent(migrated.doc) : migrated;
+}
+
+function validateCurrent(obj: Record<string, unknown>): { ok: true; doc: SetupDoc } | { ok: false; reason: string } {
 	if (Array.isArray(obj.elements) && obj.elements.length > MAX_ELEMENTS)
 		return { ok: false, reason: `elements: ${obj.elements.length} elements — a setup holds at most ${MAX_ELEMENTS}` };
 	// A list where a table of named values belongs would be read as an empty table: refuse it.

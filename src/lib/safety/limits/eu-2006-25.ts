@@ -10,9 +10,12 @@
  *
  * Provenance, beside every row: Tables 2.2, 2.4, 2.5 and 2.6 and the notes to Table 2.3 were read from
  * public reproductions of the Annex (named in `FR`, `PT121`, `PT75`, `NO`, `EN` below). Table 2.3 itself
- * was not reachable as text (the French reproduction shows it only as an image of the Official Journal,
- * and no other reachable text gives its rows): its rows are marked "(from memory)" with that reason,
- * and where a recalled row has a stricter candidate the stricter is used.
+ * was not reachable as text (the French reproduction gives it only as an image; the Portuguese journal's
+ * text carries only its notes; the other reproductions searched, listed in `T23_SEARCHED`, did not come
+ * through as far as the table): its rows are marked "(from memory)" with that reason, each with the
+ * checks the read text allows (the join with Table 2.2 at 10 s; note B's radiance form of the
+ * photochemical limit and its hand-over at T_1), and where a recalled row has a stricter candidate the
+ * stricter is used.
  *
  * Wavelengths in nm and angles in mrad as the Directive prints them; values in SI (J/m², W/m²).
  */
@@ -31,10 +34,20 @@ const T23 = 'Directive 2006/25/EC Annex II Table 2.3';
 const T24 = 'Directive 2006/25/EC Annex II Table 2.4';
 const READ: Provenance = 'published-text';
 const RECALLED: Provenance = 'recalled';
-/** Why the Table 2.3 rows are recalled, and which candidate is used. */
-const T23MEM =
-	' (from memory: Table 2.3 was not reachable as text — the French reproduction gives it only as an image; where thermal and photochemical forms both apply, the more restrictive is used, per note a to Table 2.2, read, and note B to Quadro 2.3, ' +
-	'DAR II-A n.º 75 p. 43, read)';
+/** Reproductions of Annex II searched for the text of Table 2.3 (and the damaged Table 2.2 cell), none of which gave it. */
+export const T23_SEARCHED =
+	'searched: French labour code annexe II (Table 2.3 as an image; Table 2.2 cell damaged), Portuguese DAR II-A n.º 75 p. 43 and n.º 121 p. 50 ' +
+	'(only the notes to Quadro 2.3 and the head of Quadro 2.2 come through as text), Norwegian Regulations concerning Action and Limit Values Annex 4 ' +
+	'(only Table 4.5 reached), CELEX 02006L0025 and legislation.gov.uk Annex II (only the opening and Tables 2.5–2.6 reached), Spanish Real Decreto 486/2010, ' +
+	'Italian D.Lgs. 81/2008 Allegato XXXVII, Romanian HG 510/2010, Swedish, Danish and Polish texts, German TROS Laserstrahlung Teil 2 (opening pages only), the Commission non-binding guide (EN, PT, IT: opening pages only)';
+/** Why a Table 2.3 row is recalled, and the check the read text allows for it. */
+const t23Mem = (check: string) =>
+	` (from memory: Table 2.3 was not reachable as text — ${T23_SEARCHED}. ${check} Where thermal and photochemical forms both apply, the more restrictive is used, per note a to Table 2.2 and note B to Quadro 2.3, DAR II-A n.º 75 p. 43, both read)`;
+/** Check of a recalled ≥ 10 s row against the Table 2.2 row it continues (read) at t = 10 s. */
+const joins = (t22: string, at10: string) => `Check: it joins ${T22} ${t22} (read) at 10 s — ${at10}.`;
+/** Note B to Quadro 2.3 (read in PT75): the photochemical limit as integrated radiance over γ. */
+const NOTE_B_PHOTO =
+	'Check: note B to Quadro 2.3 (read, DAR II-A n.º 75 p. 43) gives the same limit as G = 10⁶ C_B J m⁻² sr⁻¹ for 10 s < t ≤ 10⁴ s and L = 100 C_B W m⁻² sr⁻¹ beyond, averaged over γ; over the γ cone (Ω = π·γ²/4) that is 0.95 of the recalled value (the standard rounds the solid angle), and note B hands the point-source limit from thermal to photochemical at T_1, where 10 W/m² × T_1 = 100 C_B J/m² (450–500 nm).';
 
 /** Table 2.5, read: C_A, C_B, C_C, T_1, α_min, C_E, T_2, γ. */
 export function euFactors(lambda_nm: number, t_s: number, alpha_mrad: number): FactorValues {
@@ -67,7 +80,7 @@ const uvRows: LimitRow[] = [
 		source: `${T22}, rows 180–280 and 280–302 nm, columns 10⁻⁹–10 s: "H = 30 J m⁻²"; skin: ${T24} row 180–400 nm "see eye limits" — ${FR} ${PT121}` }),
 	row({ id: 'uv-180-302-long', targets: BOTH, wavelength_nm: [180, 302.5], duration_s: [10, 3e4], mechanism: 'photochemical', kind: 'radiantExposure',
 		expression: 'H = 30 J/m²', value: () => 30, provenance: RECALLED,
-		source: `${T23}, rows 180–280 and 280–302 nm, columns 10–3·10⁴ s: H = 30 J/m², the dose of ${T22} for the same rows (read) kept for longer exposures; skin as eye (${T24}, read)${T23MEM}` }),
+		source: `${T23}, rows 180–280 and 280–302 nm, columns 10–3·10⁴ s: H = 30 J/m², the dose of ${T22} for the same rows (read) kept for longer exposures; skin as eye (${T24}, read)${t23Mem(joins('rows 180–280 and 280–302 nm', 'the same 30 J/m²'))}` }),
 	...euUvDoses.map(([nm, H]) =>
 		row({ id: `uv-${nm}`, targets: BOTH, wavelength_nm: [nm - 0.5, nm === 314 ? 315 : nm + 0.5], duration_s: [1e-9, 10], mechanism: 'photochemical', kind: 'radiantExposure',
 			expression: `H = ${sci(H)} J/m²`, value: () => H, provenance: READ,
@@ -76,14 +89,14 @@ const uvRows: LimitRow[] = [
 	...euUvDoses.map(([nm, H]) =>
 		row({ id: `uv-${nm}-long`, targets: BOTH, wavelength_nm: [nm - 0.5, nm === 314 ? 315 : nm + 0.5], duration_s: [10, 3e4], mechanism: 'photochemical', kind: 'radiantExposure',
 			expression: `H = ${sci(H)} J/m²`, value: () => H, provenance: RECALLED,
-			source: `${T23}, row ${nm} nm, columns 10–3·10⁴ s: H = ${sci(H)} J/m², the dose of ${T22} row ${nm} nm (read) kept for longer exposures${T23MEM}` })
+			source: `${T23}, row ${nm} nm, columns 10–3·10⁴ s: H = ${sci(H)} J/m², the dose of ${T22} row ${nm} nm (read) kept for longer exposures${t23Mem(joins(`row ${nm} nm`, `the same ${sci(H)} J/m²`))}` })
 	),
 	row({ id: 'uv-302-400-thermal', targets: BOTH, wavelength_nm: [302.5, 400], duration_s: [1e-9, 10], mechanism: 'thermal', kind: 'radiantExposure', uses: ['C1'],
 		expression: 'H = 5.6·10³·t^0.25 J/m²', value: ({ t_s }) => 5.6e3 * t_s ** 0.25, provenance: READ,
 		source: `${T22}, rows 303–314 nm ("if t < … then H = 5.6·10³ t^0.25 J m⁻²", see note d) and row 315–400 nm ("H = 5.6·10³ t^0.25 J m⁻²"), columns 10⁻⁹–10 s — ${FR} ${PT121}` }),
 	row({ id: 'uva-long', targets: BOTH, wavelength_nm: [315, 400], duration_s: [10, 3e4], mechanism: 'photochemical', kind: 'radiantExposure',
 		expression: 'H = 10⁴ J/m²', value: () => 1e4, provenance: RECALLED,
-		source: `${T23}, row 315–400 nm, columns 10–3·10⁴ s: H = 10⁴ J/m²; skin as eye (${T24}, read)${T23MEM}` })
+		source: `${T23}, row 315–400 nm, columns 10–3·10⁴ s: H = 10⁴ J/m²; skin as eye (${T24}, read)${t23Mem(joins('row 315–400 nm', '5.6·10³·10^0.25 = 9.96·10³ J/m², within 0.5 %') + ' The other candidate remembered, E = 10 W/m² from 10³ s (the later ICNIRP and IEC form), is more lenient and not used.')}` })
 ];
 
 /** Retinal thermal rows for t < 10 s (Table 2.2, read): [band, 10⁻¹³–10⁻¹¹ s constant, 10⁻¹¹–10⁻⁹ s t^0.75 coefficient, ns constant, t^0.75 coefficient, break time, factor text]. */
@@ -110,27 +123,28 @@ const retinalRows: LimitRow[] = retinalShort.flatMap(({ band, ps, k1, ns, k2, tB
 
 const longRetinalRows: LimitRow[] = [
 	row({ id: 'photochem-10-100', targets: EYE, wavelength_nm: [400, 600], duration_s: [10, 100], mechanism: 'photochemical', kind: 'radiantExposure', uses: ['CB', 'gamma_mrad'],
-		expression: 'H = 100·C_B J/m² (γ = 11 mrad)', value: ({ f }) => 100 * f.CB, source: `${T23}, row 400–600 nm (photochemical), column 10–10² s${T23MEM}`, provenance: RECALLED }),
+		expression: 'H = 100·C_B J/m² (γ = 11 mrad)', value: ({ f }) => 100 * f.CB, source: `${T23}, row 400–600 nm (photochemical), column 10–10² s${t23Mem(NOTE_B_PHOTO)}`, provenance: RECALLED }),
 	row({ id: 'photochem-100-1e4', targets: EYE, wavelength_nm: [400, 600], duration_s: [100, 1e4], mechanism: 'photochemical', kind: 'irradiance', uses: ['CB', 'gamma_mrad'],
-		expression: 'E = 1·C_B W/m² (γ = 1.1·t^0.5 mrad)', value: ({ f }) => f.CB, source: `${T23}, row 400–600 nm (photochemical), column 10²–10⁴ s${T23MEM}`, provenance: RECALLED }),
+		expression: 'E = 1·C_B W/m² (γ = 1.1·t^0.5 mrad)', value: ({ f }) => f.CB, source: `${T23}, row 400–600 nm (photochemical), column 10²–10⁴ s${t23Mem(NOTE_B_PHOTO)}`, provenance: RECALLED }),
 	row({ id: 'photochem-1e4-3e4', targets: EYE, wavelength_nm: [400, 600], duration_s: [1e4, 3e4], mechanism: 'photochemical', kind: 'irradiance', uses: ['CB', 'gamma_mrad'],
-		expression: 'E = 1·C_B W/m² (γ = 110 mrad)', value: ({ f }) => f.CB, source: `${T23}, row 400–600 nm (photochemical), column 10⁴–3·10⁴ s${T23MEM}`, provenance: RECALLED }),
+		expression: 'E = 1·C_B W/m² (γ = 110 mrad)', value: ({ f }) => f.CB, source: `${T23}, row 400–600 nm (photochemical), column 10⁴–3·10⁴ s${t23Mem(NOTE_B_PHOTO)}`, provenance: RECALLED }),
 	row({ id: 'thermal-long-400-point', targets: EYE, wavelength_nm: [400, 700], duration_s: [10, 3e4], mechanism: 'thermal', kind: 'irradiance',
-		condition: 'α < 1.5 mrad', when: pointSource, expression: 'E = 10 W/m²', value: () => 10, source: `${T23}, row 400–700 nm (thermal), α < 1.5 mrad${T23MEM}`, provenance: RECALLED }),
+		condition: 'α < 1.5 mrad', when: pointSource, expression: 'E = 10 W/m²', value: () => 10, source: `${T23}, row 400–700 nm (thermal), α < 1.5 mrad${t23Mem(joins('row 400–700 nm (18·t^0.75·C_E)', '18·10^0.75 = 101.2 J/m², i.e. 10.1 W/m² over 10 s, within 1.2 %') + ' Note B to Quadro 2.3 (read) hands this limit to the photochemical one at T_1: 10 W/m² × T_1 = 100 C_B J/m² for 450–500 nm.')}`, provenance: RECALLED }),
 	row({ id: 'thermal-long-400-ext', targets: EYE, wavelength_nm: [400, 700], duration_s: [10, 3e4], mechanism: 'thermal', kind: 'radiantExposure', uses: ['CE', 'T2_s'],
 		condition: 'α > 1.5 mrad, t ≤ T_2', when: extendedUpToT2, expression: 'H = 18·C_E·t^0.75 J/m²', value: ({ t_s, f }) => 18 * f.CE * t_s ** 0.75,
-		source: `${T23}, row 400–700 nm (thermal), α > 1.5 mrad and t ≤ T_2${T23MEM}`, provenance: RECALLED }),
+		source: `${T23}, row 400–700 nm (thermal), α > 1.5 mrad and t ≤ T_2${t23Mem(joins('row 400–700 nm', 'the same form 18·t^0.75·C_E continued to T_2'))}`, provenance: RECALLED }),
 	row({ id: 'thermal-long-400-ext-T2', targets: EYE, wavelength_nm: [400, 700], duration_s: [10, 3e4], mechanism: 'thermal', kind: 'irradiance', uses: ['CE', 'T2_s'],
 		condition: 'α > 1.5 mrad, t > T_2', when: extendedAfterT2, expression: 'E = 18·C_E·T_2^−0.25 W/m²', value: ({ f }) => 18 * f.CE * f.T2_s ** -0.25,
-		source: `${T23}, row 400–700 nm (thermal), α > 1.5 mrad and t > T_2${T23MEM}`, provenance: RECALLED }),
+		source: `${T23}, row 400–700 nm (thermal), α > 1.5 mrad and t > T_2${t23Mem('Check: 18·C_E·T_2^−0.25 W/m² is the average of 18·C_E·T_2^0.75 J/m² over T_2, so it joins the t ≤ T_2 form at T_2.')}`, provenance: RECALLED }),
 	row({ id: 'thermal-long-700-point', targets: EYE, wavelength_nm: [700, 1400], duration_s: [10, 3e4], mechanism: 'thermal', kind: 'irradiance', uses: ['CA', 'CC'],
-		condition: 'α < 1.5 mrad', when: pointSource, expression: 'E = 10·C_A·C_C W/m²', value: ({ f }) => 10 * f.CA * f.CC, source: `${T23}, row 700–1400 nm, α < 1.5 mrad${T23MEM}`, provenance: RECALLED }),
+		condition: 'α < 1.5 mrad', when: pointSource, expression: 'E = 10·C_A·C_C W/m²', value: ({ f }) => 10 * f.CA * f.CC, source: `${T23}, row 700–1400 nm, α < 1.5 mrad${t23Mem(joins('rows 700–1050 nm (18·t^0.75·C_A·C_E) and 1050–1400 nm (90·t^0.75·C_C·C_E; C_A = 5 there, Table 2.5 read)', '10.1·C_A and 50.6·C_C W/m² over 10 s, within 1.2 %'))}`, provenance: RECALLED }),
 	row({ id: 'thermal-long-700-ext', targets: EYE, wavelength_nm: [700, 1400], duration_s: [10, 3e4], mechanism: 'thermal', kind: 'radiantExposure', uses: ['CA', 'CC', 'CE', 'T2_s'],
 		condition: 'α > 1.5 mrad, t ≤ T_2', when: extendedUpToT2, expression: 'H = 18·C_A·C_C·C_E·t^0.75 J/m²', value: ({ t_s, f }) => 18 * f.CA * f.CC * f.CE * t_s ** 0.75,
-		source: `${T23}, row 700–1400 nm, α > 1.5 mrad and t ≤ T_2${T23MEM}`, provenance: RECALLED }),
+		source: `${T23}, row 700–1400 nm, α > 1.5 mrad and t ≤ T_2${t23Mem(joins('rows 700–1050 and 1050–1400 nm', 'the same forms (18·C_A = 90 from 1050 nm) continued to T_2'))}`, provenance: RECALLED }),
 	row({ id: 'thermal-long-700-ext-T2', targets: EYE, wavelength_nm: [700, 1400], duration_s: [10, 3e4], mechanism: 'thermal', kind: 'irradiance', uses: ['CA', 'CC', 'CE', 'T2_s'],
-		condition: 'α > 1.5 mrad, t > T_2', when: extendedAfterT2, expression: 'E = 18·C_A·C_C·C_E·T_2^−0.25 W/m²', value: ({ f }) => 18 * f.CA * f.CC * f.CE * f.T2_s ** -0.25,
-		source: `${T23}, row 700–1400 nm, α > 1.5 mrad and t > T_2${T23MEM}`, provenance: RECALLED })
+		condition: 'α > 1.5 mrad, t > T_2', when: extendedAfterT2, expression: 'E = 18·C_A·C_C·C_E·T_2^−0.25 W/m², not to exceed 1000 W/m²',
+		value: ({ f }) => Math.min(18 * f.CA * f.CC * f.CE * f.T2_s ** -0.25, 1000),
+		source: `${T23}, row 700–1400 nm, α > 1.5 mrad and t > T_2${t23Mem('Two printings are remembered for this cell, one with "(not to exceed 1000 W m⁻²)" after the expression and one without; the stricter, with the cap, is used (it limits large sources from about 1150 nm, e.g. 1300 nm, α = 100 mrad: 15.2 kW/m² uncapped). Check: 18·C_A·C_C·C_E·T_2^−0.25 W/m² is the average of 18·C_A·C_C·C_E·T_2^0.75 J/m² over T_2, so where the cap does not act it joins the t ≤ T_2 form at T_2.')}`, provenance: RECALLED })
 ];
 
 
@@ -145,10 +159,10 @@ const irSource: IrSource = (b, part, label) => {
 			return { provenance: READ, source: `${T22}, row ${label}, columns 10⁻⁹–${tEnd} s: "H = ${H} J m⁻²"; skin: ${T24} "see eye limits" — ${FR} ${PT121}` };
 		case 't025':
 			return b.band[0] === 2600
-				? { provenance: RECALLED, source: `${T22}, row ${label}, columns ${tEnd}–10 s: H = 5.6·10³·t^0.25 J/m² (from memory: the French reproduction prints this cell damaged, "H = 5,6·10³·t J m", without the exponent — read literally it would fall from 100 J/m² to 5.6·10⁻⁴ J/m² at 10⁻⁷ s; the form printed in the same column for 1400–1500 and 1800–2600 nm, which joins the 100 J/m² cell at 10⁻⁷ s, is used); skin: ${T24} "see eye limits"` }
+				? { provenance: RECALLED, source: `${T22}, row ${label}, columns ${tEnd}–10 s: H = 5.6·10³·t^0.25 J/m² (from memory: the French reproduction prints this cell damaged, "H = 5,6·10³·t J m", without the exponent, and no other reachable text gives it — ${T23_SEARCHED}. Read literally the limit would fall 10⁵-fold, from 100 J/m² to 5.6·10⁻⁴ J/m², as the duration passes 10⁻⁷ s (no other row of Tables 2.2 and 2.4 falls with duration) and reach 5.6·10⁴ J/m² at 10 s, 5.6 times the 1000 W/m² that follows: it is not a candidate. The form printed in the same column for 1400–1500 and 1800–2600 nm, which joins the 100 J/m² cell at 10⁻⁷ s (5.6·10³·(10⁻⁷)^0.25 = 99.6 J/m²) and 1000 W/m² at 10 s (996 W/m²), is used); skin: ${T24} "see eye limits"` }
 				: { provenance: READ, source: `${T22}, row ${label}, columns ${tEnd}–10 s: "H = 5.6·10³·t^0.25 J m⁻²"; skin: ${T24} "see eye limits" — ${FR} ${PT121}` };
 		case 'long':
-			return { provenance: RECALLED, source: `${T23}, row ${label}, columns 10–3·10⁴ s: E = 1000 W/m²; skin: ${T24} "see eye limits" (read)${T23MEM}` };
+			return { provenance: RECALLED, source: `${T23}, row ${label}, columns 10–3·10⁴ s: E = 1000 W/m²; skin: ${T24} "see eye limits" (read)${t23Mem(joins(`row ${label}`, b.tEnd_s < 10 ? '5.6·10³·10^0.25 = 9.96·10³ J/m², i.e. 996 W/m² over 10 s, within 0.5 %' : '10⁴ J/m², i.e. 1000 W/m² over 10 s'))}` };
 	}
 };
 
@@ -180,13 +194,13 @@ function euApertureSourceAt(target: Target, lambda_nm: number, t_s: number): { s
 	if (lambda_nm >= 400 && lambda_nm < 1400)
 		return t_s < 10
 			? { provenance: READ, source: `${T22}, aperture column, rows 400–1400 nm: "7 mm" — ${FR} ${PT121}` }
-			: { provenance: RECALLED, source: `${T23}, aperture 7 mm for 400–1400 nm (from memory: Table 2.3 not reachable as text; 7 mm is the value of ${T22} for the same rows, read)` };
+			: { provenance: RECALLED, source: `${T23}, aperture 7 mm for 400–1400 nm (from memory: Table 2.3 not reachable as text — ${T23_SEARCHED}; 7 mm is the value of ${T22} for the same rows, read, and notes C–D to Quadro 2.3, read, name no other aperture for them)` };
 	if (t_s < 10)
 		return lambda_nm < 400
 			? { provenance: READ, source: `${T22}, aperture column, rows 180–400 nm: "1 mm for t < 0.3 s; 1.5·t^0.375 for 0.3 < t < 10 s", with t = 0.3 s itself given 1 mm as in note b — ${FR} ${PT121}` }
 			: { provenance: READ, source: `${T22} note b: "1400 ≤ λ < 10⁵ nm: limiting aperture diameter = 1 mm for t ≤ 0.3 s and 1.5·t^0.375 mm for 0.3 s < t < 10 s" — ${FR}` };
 	return lambda_nm < 400
-		? { provenance: RECALLED, source: `${T23}, aperture 3.5 mm for 180–400 nm from 10 s (from memory: note C to Quadro 2.3 gives 3.5 mm only for 1400–10⁵ nm; 3.5 mm is the stricter candidate, smaller than the 1.5·t^0.375 ≥ 3.56 mm the shorter-exposure form would give)` }
+		? { provenance: RECALLED, source: `${T23}, aperture 3.5 mm for 180–400 nm from 10 s (from memory: Table 2.3 not reachable as text — ${T23_SEARCHED}; note C to Quadro 2.3, read, gives 3.5 mm only for 1400–10⁵ nm; 3.5 mm is the stricter candidate, smaller than the 1.5·t^0.375 ≥ 3.56 mm the shorter-exposure form would give)` }
 		: { provenance: READ, source: `${T23}, note C: "1400–10⁵ nm: aperture diameter = 3.5 mm" — ${PT75}` };
 }
 
@@ -220,7 +234,7 @@ export const eu200625: Edition = {
 	cpApplies: (_target, _lambda_nm, mechanism) => mechanism === 'thermal',
 	cpSource: `Directive 2006/25/EC Annex II Table 2.6, rule 3: C_P = N^−0.25 applies only to limits protecting against thermal injury; all pulses delivered within T_min count as a single pulse — ${FR} ${EN}`,
 	notes: [
-		'Annex II Tables 2.2, 2.4, 2.5 and 2.6 were read from published reproductions (French labour code; Portuguese parliamentary journal DAR II-A; Norwegian Regulations concerning Action and Limit Values, Annex 4). Table 2.3 (eye, ≥ 10 s) was not reachable as text: its rows are recalled and say so.',
+		'Annex II Tables 2.2, 2.4, 2.5 and 2.6 and the notes to Table 2.3 were read from published reproductions (French labour code; Portuguese parliamentary journal DAR II-A; Norwegian Regulations concerning Action and Limit Values, Annex 4). Table 2.3 (eye, ≥ 10 s) was not reachable as text in any reproduction searched: its rows are recalled and say so, each checked against the read Table 2.2 at 10 s and, for the photochemical rows, against note B.',
 		'Rows printed for single wavelengths 303–314 nm are applied to the 1-nm band centred on each.',
 		'α = 1.5 mrad exactly is treated as a point source.',
 		'Where thermal and photochemical limits both apply, the more restrictive is used (note a to Tables 2.2 and 2.4).'

@@ -10,7 +10,7 @@ import type { Edition, LimitInput, LimitResult, StandardId } from './types';
 
 export * from './types';
 export { evaluateEdition, evaluateMechanism, checkLimitInput, matchingRows, provenanceLineOf, wavelengthRange_nm, durationRange_s } from './evaluate';
-export { eu200625, euFactors, euUvDoses, euApertureRule } from './eu-2006-25';
+export { eu200625, euFactors, euUvDoses, euApertureRule, T23_SEARCHED } from './eu-2006-25';
 export { iec608251_2014, iecFactors, iecAlphaMax_mrad, iecApertureRule } from './iec-60825-1-2014';
 export { limitingAperture_m, farIrBands, type ApertureRule } from './shared';
 
