@@ -91,6 +91,16 @@ test('out-of-range source values and bad "Plot to" values show a message, keep t
 		await input.fill(original);
 		await expect(page.getByTestId('setup-error')).toHaveCount(0);
 	}
+	// "Plot to" starts empty, yet shows its unit: a bare number is read in it, and picking another unit
+	// rewrites the number shown (500 mm = 0.5 m) — common practice for unit pickers.
+	const end = page.getByTestId('view-end');
+	await expect(end).toHaveValue('');
+	await expect(page.getByTestId('view-end-unit')).toHaveValue('mm');
+	await end.fill('500');
+	await expect(end).toHaveAttribute('aria-invalid', 'false');
+	await page.getByTestId('view-end-unit').selectOption('m');
+	await expect(end).toHaveValue('0.5');
+	await end.fill('');
 });
 
 test('bad input in the fields of lens L2 (focal length, position, aperture) is refused and nothing breaks', async ({ page }) => {
