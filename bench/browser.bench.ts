@@ -16,6 +16,9 @@
  *   `event.timeStamp` to the end of the next frame after the handler ran, p50 and p95, repeated;
  *   reference: the frameworkless page. Goal p95 ≤ 1.25× the reference.
  * Builds the app first when ./build is missing, and precompresses it when its .br files are missing.
+ * BW_BENCH_PART (`npm run bench -- browser drag`) limits the run to some of `bytes`, `load`, `drag`
+ * (comma-separated), BW_BENCH_PAGES (`bench,scan`) the pages of bytes and load; every part still
+ * measures its own reference in the same run.
  */
 import { spawn, execSync } from 'node:child_process';
 import { existsSync, readFileSync, readdirSync, statSync } from 'node:fs';
@@ -30,10 +33,12 @@ const ORIGIN = `http://localhost:${PORT}`;
 const LOADS = Number(process.env.BW_BENCH_LOADS ?? 10);
 const QUIET_MS = 5000;
 const PLAIN = `${ORIGIN}/__bench/caustic.html`;
+const PARTS = new Set((process.env.BW_BENCH_PART ?? 'bytes,load,drag').split(',').map((p) => p.trim()));
+for (const p of PARTS) if (!['bytes', 'load', 'drag'].includes(p)) throw new Error(`BW_BENCH_PART: unknown part "${p}" — use bytes, load and/or drag`);
 const BLANK = `${ORIGIN}/__bench/blank.html`;
 
-/** The first-view element of each page. */
-const PAGES: { path: string; name: string; view: string }[] = [
+/** The first-view element of each page (BW_BENCH_PAGES=bench,scan limits bytes and load to those pages). */
+const ALL_PAGES: { path: string; name: string; view: string }[] = [
 	{ path: '/', name: 'bench', view: '[data-testid="curve-x"]' },
 	{ path: '/match/', name: 'match', view: '[data-testid="input-table"]' },
 	// Measure shows its form until data arrive (no plot yet).
@@ -41,6 +46,9 @@ const PAGES: { path: string; name: string; view: string }[] = [
 	{ path: '/scan/', name: 'scan', view: '[data-testid="scan-plot"]' },
 	{ path: '/hazard/', name: 'hazard', view: '[data-testid="hz-plot"]' }
 ];
+const PAGE_NAMES = process.env.BW_BENCH_PAGES?.split(',').map((p) => p.trim());
+const PAGES = PAGE_NAMES ? ALL_PAGES.filter((p) => PAGE_NAMES.includes(p.name)) : ALL_PAGES;
+if (PAGE_NAMES && PAGES.length !== PAGE_NAMES.length) throw new Error(`BW_BENCH_PAGES: use some of ${ALL_PAGES.map((p) => p.name).join(', ')}`);
 
 function twentyElementSetup() {
 	const doc = demoSetup();
@@ -226,59 +234,64 @@ export async function run(): Promise<Row[]> {
 	const kB = (n: number) => n / 1024;
 	try {
 		// Bytes: what each route needs, as sent.
-		for (const pg of PAGES) {
-			const files = await routeFiles(browser, pg);
-			let jsGz = 0, jsBr = 0, allGz = 0, allBr = 0;
-			for (const f of files) {
-				const gz = await sentBytes(f, 'gzip');
-				const br = await sentBytes(f, 'br');
-				allGz += gz;
-				allBr += br;
-				if (f.endsWith('.js')) {
-					jsGz += gz;
-					jsBr += br;
+		if (PARTS.has('bytes')) {
+			for (const pg of PAGES) {
+				const files = await routeFiles(browser, pg);
+				let jsGz = 0, jsBr = 0, allGz = 0, allBr = 0;
+				for (const f of files) {
+					const gz = await sentBytes(f, 'gzip');
+					const br = await sentBytes(f, 'br');
+					allGz += gz;
+					allBr += br;
+					if (f.endsWith('.js')) {
+						jsGz += gz;
+						jsBr += br;
+					}
+				}
+				rows.push({ figure: `bytes, ${pg.name}: JS for the first view (gzip / brotli sent)`, value: kB(jsGz), unit: 'kB', goal: `brotli ${kB(jsBr).toFixed(1)} kB; ${files.filter((f) => f.endsWith('.js')).length} files` });
+				rows.push({ figure: `bytes, ${pg.name}: all files for the first view (gzip / brotli)`, value: kB(allGz), unit: 'kB', goal: `brotli ${kB(allBr).toFixed(1)} kB; ${files.length} files` });
+			}
+			const all = listFiles('build').map((p) => p.slice('build'.length).replace(/\\/g, '/'));
+			let preGz = 0, preBr = 0;
+			for (const f of all) {
+				preGz += await sentBytes(f, 'gzip');
+				preBr += await sentBytes(f, 'br');
+			}
+			rows.push({ figure: 'bytes, service-worker precache (whole build, fetched when idle)', value: kB(preGz), unit: 'kB', goal: `gzip; brotli ${kB(preBr).toFixed(1)} kB; ${all.length} files; not on the first view's path` });
+		}
+
+		if (PARTS.has('load')) {
+			// Load: references first (blank page first paint, frameworkless page), then each page, interleaved per round.
+			const blank: number[] = [], plainFirst: number[] = [], plainTti: number[] = [];
+			const per = new Map<string, { first: number[]; tti: number[]; longAfter: number[] }>(PAGES.map((p) => [p.path, { first: [], tti: [], longAfter: [] }]));
+			await coldLoad(browser, BLANK, 'p'); // warm-up: browser and server
+			for (let i = 0; i < LOADS; i++) {
+				const b = await coldLoad(browser, BLANK, 'p');
+				blank.push(b.fp);
+				const p = await coldLoad(browser, PLAIN, '[data-testid="curve-x"]');
+				plainFirst.push(p.first);
+				plainTti.push(p.tti);
+				for (const pg of PAGES) {
+					const r = await coldLoad(browser, ORIGIN + pg.path, pg.view);
+					const e = per.get(pg.path)!;
+					e.first.push(r.first);
+					e.tti.push(r.tti);
+					e.longAfter.push(r.longAfter);
 				}
 			}
-			rows.push({ figure: `bytes, ${pg.name}: JS for the first view (gzip / brotli sent)`, value: kB(jsGz), unit: 'kB', goal: `brotli ${kB(jsBr).toFixed(1)} kB; ${files.filter((f) => f.endsWith('.js')).length} files` });
-			rows.push({ figure: `bytes, ${pg.name}: all files for the first view (gzip / brotli)`, value: kB(allGz), unit: 'kB', goal: `brotli ${kB(allBr).toFixed(1)} kB; ${files.length} files` });
-		}
-		const all = listFiles('build').map((p) => p.slice('build'.length).replace(/\\/g, '/'));
-		let preGz = 0, preBr = 0;
-		for (const f of all) {
-			preGz += await sentBytes(f, 'gzip');
-			preBr += await sentBytes(f, 'br');
-		}
-		rows.push({ figure: 'bytes, service-worker precache (whole build, fetched when idle)', value: kB(preGz), unit: 'kB', goal: `gzip; brotli ${kB(preBr).toFixed(1)} kB; ${all.length} files; not on the first view's path` });
-
-		// Load: references first (blank page first paint, frameworkless page), then each page, interleaved per round.
-		const blank: number[] = [], plainFirst: number[] = [], plainTti: number[] = [];
-		const per = new Map<string, { first: number[]; tti: number[]; longAfter: number[] }>(PAGES.map((p) => [p.path, { first: [], tti: [], longAfter: [] }]));
-		await coldLoad(browser, BLANK, 'p'); // warm-up: browser and server
-		for (let i = 0; i < LOADS; i++) {
-			const b = await coldLoad(browser, BLANK, 'p');
-			blank.push(b.fp);
-			const p = await coldLoad(browser, PLAIN, '[data-testid="curve-x"]');
-			plainFirst.push(p.first);
-			plainTti.push(p.tti);
+			const blankS = spread(blank);
+			rows.push(refRow(`blank page, first paint (cold, median of ${LOADS})`, 'ms', blankS));
+			rows.push(ratioRow(`frameworkless caustic page: first beam drawn`, 'ms', spread(plainFirst), 'blank FP', blankS, null));
+			rows.push(ratioRow(`frameworkless caustic page: time to interactive`, 'ms', spread(plainTti), 'blank FP', blankS, null));
 			for (const pg of PAGES) {
-				const r = await coldLoad(browser, ORIGIN + pg.path, pg.view);
 				const e = per.get(pg.path)!;
-				e.first.push(r.first);
-				e.tti.push(r.tti);
-				e.longAfter.push(r.longAfter);
+				rows.push(ratioRow(`load, ${pg.name}: first ${pg.path === '/' ? 'beam' : 'view'} drawn (cold, median of ${LOADS})`, 'ms', spread(e.first), 'blank FP', blankS, 2));
+				rows.push(ratioRow(`load, ${pg.name}: time to interactive (quiet 5 s rule)`, 'ms', spread(e.tti), 'blank FP', blankS, 4));
+				const la = spread(e.longAfter);
+				rows.push({ figure: `load, ${pg.name}: longest task after the first view`, value: la.med, min: la.min, max: la.max, unit: 'ms', goal: '≤ 50 ms (0 = none over 50 ms)', ok: la.max <= 50 });
 			}
 		}
-		const blankS = spread(blank);
-		rows.push(refRow(`blank page, first paint (cold, median of ${LOADS})`, 'ms', blankS));
-		rows.push(ratioRow(`frameworkless caustic page: first beam drawn`, 'ms', spread(plainFirst), 'blank FP', blankS, null));
-		rows.push(ratioRow(`frameworkless caustic page: time to interactive`, 'ms', spread(plainTti), 'blank FP', blankS, null));
-		for (const pg of PAGES) {
-			const e = per.get(pg.path)!;
-			rows.push(ratioRow(`load, ${pg.name}: first ${pg.path === '/' ? 'beam' : 'view'} drawn (cold, median of ${LOADS})`, 'ms', spread(e.first), 'blank FP', blankS, 2));
-			rows.push(ratioRow(`load, ${pg.name}: time to interactive (quiet 5 s rule)`, 'ms', spread(e.tti), 'blank FP', blankS, 4));
-			const la = spread(e.longAfter);
-			rows.push({ figure: `load, ${pg.name}: longest task after the first view`, value: la.med, min: la.min, max: la.max, unit: 'ms', goal: '≤ 50 ms (0 = none over 50 ms)', ok: la.max <= 50 });
-		}
+		if (!PARTS.has('drag')) return rows;
 
 		// Drag: REPS rounds after a warm-up round, app and frameworkless page alternating.
 		const setup = JSON.stringify(twentyElementSetup());

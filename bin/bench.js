@@ -3,7 +3,9 @@
 // `run(): Promise<Row[]>` (bench/stats.ts): figure, min / median / max, the reference measured in the
 // same run, the ratio to it, and the goal stated as that ratio. Verdicts judge the ratio, so they hold
 // when other processes load the machine; the absolute figures are printed only beside their reference.
-// `npm run bench -- browser` runs the files whose name contains "browser".
+// `npm run bench -- browser` runs the files whose name contains "browser"; a second word picks a part of
+// that file, passed on as BW_BENCH_PART (the browser bench: `bytes`, `load` or `drag`, comma-separated),
+// e.g. `npm run bench -- browser drag`.
 import { register } from 'tsx/esm/api';
 import { readdirSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
@@ -13,6 +15,7 @@ import { loadavg } from 'node:os';
 register();
 const dir = join(dirname(fileURLToPath(import.meta.url)), '..', 'bench');
 const only = process.argv[2];
+if (process.argv[3]) process.env.BW_BENCH_PART = process.argv[3];
 const files = readdirSync(dir).filter((f) => f.endsWith('.bench.ts') && (!only || f.includes(only))).sort();
 
 function fmt(v) {

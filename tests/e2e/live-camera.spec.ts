@@ -38,20 +38,23 @@ function metres(text: string): number {
 	return Number(m[1]) * { nm: 1e-9, µm: 1e-6, mm: 1e-3, m: 1 }[m[2] as 'nm' | 'µm' | 'mm' | 'm'];
 }
 
+/** Waits on steps that need camera frames: a busy machine delivers them slowly, which must not fail a test. */
+const FRAMES = { timeout: 30_000 };
+
 async function openLive(page: Page, beam = true, pitch = '5 um') {
 	await page.goto('/measure/'); // fresh context per test: empty storage
 	await page.getByTestId('pixel-pitch').fill(pitch);
 	await page.getByTestId('live-open').click();
 	await page.getByTestId('live-start').click();
-	if (beam) await expect(page.getByTestId('live-readout')).toBeVisible({ timeout: 30_000 });
+	if (beam) await expect(page.getByTestId('live-readout')).toBeVisible(FRAMES);
 	// With the beam blocked there are no widths; the page says there is no beam to measure.
-	else await expect(page.getByTestId('live-warnings')).toContainText('must show a beam', { timeout: 30_000 });
+	else await expect(page.getByTestId('live-warnings')).toContainText('must show a beam', FRAMES);
 }
 
 /** Wait until the live d_x is within `tol` of `expected_m` (the new file is being read). */
 async function waitForDx(page: Page, expected_m: number, tol = 0.03) {
 	await expect
-		.poll(async () => Math.abs(metres(await page.getByTestId('live-dx').innerText()) / expected_m - 1), { timeout: 30_000 })
+		.poll(async () => Math.abs(metres(await page.getByTestId('live-dx').innerText()) / expected_m - 1), FRAMES)
 		.toBeLessThan(tol);
 }
 
@@ -61,7 +64,7 @@ test('live read-out gives the D4σ widths, orientation and frame rate of a drift
 	const expectA = 2 * base.wa_px * pitch_m; // 600 µm
 	const expectB = 2 * base.wb_px * pitch_m; // 360 µm
 	await expect
-		.poll(async () => Math.abs(metres(await page.getByTestId('live-dxp').innerText()) / expectA - 1), { timeout: 30_000 })
+		.poll(async () => Math.abs(metres(await page.getByTestId('live-dxp').innerText()) / expectA - 1), FRAMES)
 		.toBeLessThan(0.02);
 	const dyp = metres(await page.getByTestId('live-dyp').innerText());
 	expect(Math.abs(dyp / expectB - 1)).toBeLessThan(0.02);
@@ -75,7 +78,7 @@ test('live read-out gives the D4σ widths, orientation and frame rate of a drift
 test('a saturated beam is flagged with its pixel count; a refused camera gets a clear message', async ({ page }) => {
 	writeBeamY4m(video, { ...base, peak: 260 });
 	await openLive(page);
-	await expect(page.getByTestId('live-warnings')).toContainText(/\d+ pixels are saturated/, { timeout: 30_000 });
+	await expect(page.getByTestId('live-warnings')).toContainText(/\d+ pixels are saturated/, FRAMES);
 	await page.getByTestId('live-stop').click();
 
 	// Permission refused: the page says so and everything else still works.
@@ -96,7 +99,7 @@ test('guided caustic scan: dark frame, ten planes at typed z, ISO 11146 fit, fit
 	await openLive(page, false, '5 um');
 	await page.getByTestId('m-wavelength').fill('1064 nm');
 	await page.getByTestId('live-dark').click();
-	await expect(page.getByTestId('live-status')).toContainText('Dark frame captured');
+	await expect(page.getByTestId('live-status')).toContainText('Dark frame captured', FRAMES);
 	await page.getByTestId('live-stop').click();
 
 	// x: d0 = 200 µm at z0 = 100 mm, M² 1.2; y: d0 = 240 µm at 110 mm, M² 1.4; λ = 1064 nm.
@@ -116,7 +119,7 @@ test('guided caustic scan: dark frame, ten planes at typed z, ISO 11146 fit, fit
 		await waitForDx(page, dx, 0.02);
 		await page.getByTestId('live-z').fill(`${(z * 1e3).toFixed(3)} mm`);
 		await page.getByTestId('live-capture').click();
-		await expect(page.getByTestId('live-capture-note')).toContainText('Captured');
+		await expect(page.getByTestId('live-capture-note')).toContainText('Captured', FRAMES);
 		await page.getByTestId('live-stop').click();
 	}
 	await expect(page.getByTestId('live-next')).toBeVisible();

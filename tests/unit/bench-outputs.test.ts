@@ -1,7 +1,7 @@
 import { describe, it, expect } from 'vitest';
 import fc from 'fast-check';
 import Papa from 'papaparse';
-import { spread, niceTicks, rangeTicks, glyphFor, project, linePath } from '../../src/lib/ui/plot/benchGeometry';
+import { spread, niceTicks, rangeTicks, glyphFor, project, linePath, curvePaths } from '../../src/lib/ui/plot/benchGeometry';
 import { csvCell, toCsv } from '../../src/lib/io/csvOut';
 import { beamAlongTrainCsv, stepGrid } from '../../src/lib/io/benchCsv';
 import { propagate } from '../../src/lib/optics/train';
@@ -45,6 +45,13 @@ describe('paths from typed arrays', () => {
 	it('projects with px = a + b·v and rounds to 0.1 px', () => {
 		const xy = project(new Float64Array([0, 1]), new Float64Array([0.5, 0.25]), 10, 100, 200, -100);
 		expect(linePath(xy, 2)).toBe('M10,150L110,175');
+	});
+	it('line and area in one pass: the same points, a repeated point written once, the area closed on the base line', () => {
+		// px = 10 + 100·z, py = 200 − 100·w (hand-computed): (10,150), (60,180) twice, (110,175).
+		const got = curvePaths(new Float64Array([0, 0.5, 0.5004, 1]), new Float64Array([0.5, 0.2, 0.2, 0.25]), 10, 100, 200, -100, 200);
+		expect(got.line).toBe('M10,150L60,180L110,175');
+		expect(got.area).toBe('M10,200L10,150L60,180L110,175L110,200Z');
+		expect(curvePaths(new Float64Array(0), new Float64Array(0), 0, 1, 0, 1, 0)).toEqual({ line: '', area: '' });
 	});
 });
 

@@ -55,6 +55,38 @@ describe('SetupStore', () => {
 		expect(s.savedAt).not.toBeNull();
 	});
 
+	it('writes nothing while a drag is under way, then saves the dragged position once it ends (one undo step)', () => {
+		vi.useFakeTimers();
+		const storage = new FakeStorage();
+		const s = new SetupStore(storage);
+		const original = s.doc.elements[1].at;
+		s.beginGesture();
+		for (const at of ['301 mm', '302 mm', '303 mm']) {
+			s.update((d) => (d.elements[1].at = at), 'drag.e2');
+			vi.advanceTimersByTime(400);
+		}
+		expect(storage.writes).toBe(0);
+		expect(s.outcome.ok && s.outcome.result.elements.find((e) => e.id === s.doc.elements[1].id)?.z_m).toBeCloseTo(0.303, 12);
+		s.endGesture();
+		vi.advanceTimersByTime(1000);
+		expect(storage.writes).toBeGreaterThan(0);
+		const v = validateSetup(JSON.parse(storage.getItem(STORAGE_KEY)!));
+		expect(v.ok && v.doc.elements[1].at).toBe('303 mm');
+		s.undo();
+		expect(s.doc.elements[1].at).toBe(original);
+	});
+
+	it('a page hide during a drag still writes at once', () => {
+		const storage = new FakeStorage();
+		const s = new SetupStore(storage);
+		s.beginGesture();
+		s.update((d) => (d.elements[1].at = '321 mm'), 'drag.e2');
+		s.flush();
+		const v = validateSetup(JSON.parse(storage.getItem(STORAGE_KEY)!));
+		expect(v.ok && v.doc.elements[1].at).toBe('321 mm');
+		s.endGesture();
+	});
+
 	it('restores the saved setup in a new store (a reload loses nothing)', () => {
 		const storage = new FakeStorage();
 		const a = new SetupStore(storage);

@@ -31,6 +31,8 @@ export class SetupStore {
 	#saveTimer: ReturnType<typeof setTimeout> | null = null;
 	#persist: Persistence;
 	#dirty = false;
+	/** A gesture (a drag) is under way: autosave waits for its end, then writes once. */
+	#holding = false;
 	/** Set when the stored document could not be read on start-up (kept aside, never overwritten silently). */
 	restoreProblem = $state<string | null>(null);
 	/** Why the last autosave failed (storage full…); null while autosave works. */
@@ -171,6 +173,24 @@ export class SetupStore {
 		this.#changed();
 	}
 
+	/**
+	 * A continuous gesture (an element dragged) begins: its edits still go into the document and the
+	 * undo history at once, but autosave waits until `endGesture`, so no pointer event pays for a write.
+	 * A page hide still writes at once (`flush`).
+	 */
+	beginGesture(): void {
+		this.#holding = true;
+		if (this.#saveTimer) clearTimeout(this.#saveTimer);
+		this.#saveTimer = null;
+	}
+
+	/** The gesture ended: autosave as after any edit. */
+	endGesture(): void {
+		if (!this.#holding) return;
+		this.#holding = false;
+		if (this.#dirty) this.#scheduleSave();
+	}
+
 	/** Replace the whole document (import, demo, new); one undo step. */
 	replace(doc: SetupDoc): void {
 		if (this.readOnly) return;
@@ -239,6 +259,10 @@ export class SetupStore {
 		this.#dirty = true;
 		this.canUndo = this.#undo.length > 0;
 		this.canRedo = this.#redo.length > 0;
+		if (!this.#holding) this.#scheduleSave();
+	}
+
+	#scheduleSave(): void {
 		if (this.#saveTimer) clearTimeout(this.#saveTimer);
 		this.#saveTimer = setTimeout(() => this.flush(), 150);
 	}

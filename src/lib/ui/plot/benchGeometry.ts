@@ -55,6 +55,32 @@ export function linePath(xy: Float32Array, n: number): string {
 	return s;
 }
 
+/**
+ * The curve px = (xa + xb·z, ya + yb·w) as a line path and as the closed area between it and the
+ * horizontal line y = base, both built in one pass over the sampled arrays, at 0.1 px. A point that
+ * rounds to the same place as the one before it is written once.
+ */
+export function curvePaths(z: Float64Array, w: Float64Array, xa: number, xb: number, ya: number, yb: number, base: number): { line: string; area: string } {
+	const n = Math.min(z.length, w.length);
+	if (n === 0) return { line: '', area: '' };
+	let body = '';
+	let px = NaN;
+	let py = NaN;
+	let first = '';
+	for (let i = 0; i < n; i++) {
+		const x = Math.round((xa + xb * z[i]) * 10) / 10;
+		const y = Math.round((ya + yb * w[i]) * 10) / 10;
+		if (x === px && y === py) continue;
+		if (i === 0) first = x + ',' + y;
+		else body += 'L' + x + ',' + y;
+		px = x;
+		py = y;
+	}
+	const b = r1(base);
+	const x0 = first.slice(0, first.indexOf(','));
+	return { line: 'M' + first + body, area: 'M' + x0 + ',' + b + 'L' + first + body + 'L' + px + ',' + b + 'Z' };
+}
+
 /** Closed area between a curve and the horizontal line y = base. */
 export function areaPath(xy: Float32Array, n: number, base: number): string {
 	if (n === 0) return '';
