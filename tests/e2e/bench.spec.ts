@@ -91,6 +91,19 @@ test('out-of-range source values and bad "Plot to" values show a message, keep t
 		await input.fill(original);
 		await expect(page.getByTestId('setup-error')).toHaveCount(0);
 	}
+	// "Plot to" keeps its unit picker when emptied: a bare number is read in the unit shown, and picking
+	// another unit rewrites the number shown (500 mm = 0.5 m) — common practice for unit pickers.
+	const end = page.getByTestId('view-end');
+	const endUnit = page.getByTestId('view-end-unit');
+	const endText = await end.inputValue();
+	await end.fill('');
+	await endUnit.selectOption('mm');
+	await end.fill('500');
+	await expect(end).toHaveAttribute('aria-invalid', 'false');
+	await endUnit.selectOption('m');
+	await expect(end).toHaveValue('0.5');
+	await end.fill(endText);
+	await expect(page.getByTestId('setup-error')).toHaveCount(0);
 });
 
 test('bad input in the fields of lens L2 (focal length, position, aperture) is refused and nothing breaks', async ({ page }) => {

@@ -130,7 +130,9 @@ test('knife-edge scans: the fitted radius is shown and the widths join the table
 	await cards.nth(0).getByTestId('knife-z').fill('100 mm');
 	await cards.nth(0).getByTestId('knife-text').fill(scan(0.8, 0.2));
 	await cards.nth(1).getByTestId('knife-axis').selectOption('y');
-	await cards.nth(1).getByTestId('knife-z').fill('100 mm');
+	// An empty z field shows its unit, and a bare number is read in it.
+	await expect(cards.nth(1).getByTestId('knife-z-unit')).toHaveValue('mm');
+	await cards.nth(1).getByTestId('knife-z').fill('100');
 	await cards.nth(1).getByTestId('knife-text').fill(scan(0.6, -0.1));
 	// w = 0.8 mm → "800.0 ± … µm"; D4σ = 2w = 1.6 mm.
 	const lead = async (el: ReturnType<typeof page.getByTestId>) => Number((await el.innerText()).split('±')[0].trim());

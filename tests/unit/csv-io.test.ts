@@ -7,7 +7,8 @@
  */
 import { beforeAll, describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
-import { csvCell, detectSeparator, numberCell, readCsv } from '../../src/lib/io/csv';
+import { detectSeparator, numberCell, readCsv } from '../../src/lib/io/csv';
+import { csvCell } from '../../src/lib/io/csvOut';
 import { assessInventory, inventoryToCsv, parseInventoryCsv, MAX_INVENTORY_ROWS } from '../../src/lib/safety/inventory';
 import { lensCsv, parseLensCsv } from '../../src/lib/optics/solve/inventory';
 import { parseWidthTable } from '../../src/lib/io/widthTable';

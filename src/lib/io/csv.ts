@@ -1,6 +1,6 @@
 /**
- * The one CSV reader and writer of the app and the CLI (lab inventory, lens shelf, width table, image
- * matrices, exports). Reading goes through papaparse (RFC 4180 quoting); this module adds what every
+ * The one CSV reader of the app and the CLI (lab inventory, lens shelf, width table, image
+ * matrices). The one writer is `csvOut.ts`. Reading goes through papaparse (RFC 4180 quoting); this module adds what every
  * caller needs the same way:
  *
  * - Separator: taken from the first line that is neither blank nor a `#` comment — tab if it has a
@@ -13,10 +13,9 @@
  *   starts — nothing after it is read silently as one giant cell (and nothing is dropped quietly).
  * - Size: a file with more than `maxRecords` lines is refused before it is parsed.
  *
- * Writing: `csvCell` quotes where RFC 4180 needs it and escapes cells that a spreadsheet would run
- * as a formula (starting with = + - @, tab or CR; OWASP "CSV Injection" guidance) by a leading
- * apostrophe; plain numbers such as "-50" are left as they are. `unescapeCell` undoes the apostrophe
- * on import, so an exported table reads back to the same text.
+ * Formula escape: the writer (`csvCell` in csvOut.ts) puts a leading apostrophe before cells that a
+ * spreadsheet would run as a formula (`needsFormulaEscape`, OWASP "CSV Injection" guidance);
+ * `unescapeCell` undoes it on import, so an exported table reads back to the same text.
  */
 import Papa from 'papaparse';
 
@@ -162,19 +161,4 @@ export function unescapeCell(text: string): string {
 /** Does a spreadsheet read this cell as a formula? (OWASP CSV Injection: = + - @ tab CR.) */
 export function needsFormulaEscape(text: string): boolean {
 	return /^[=+\-@\t\r]/.test(text) && !plainNumber.test(text);
-}
-
-/**
- * One CSV cell for export: numbers with up to 6 significant digits (non-finite → empty), formula-like
- * text escaped with a leading apostrophe, quoted where it holds a separator, quote or line break.
- */
-export function csvCell(v: string | number | null | undefined, digits = 6): string {
-	let s = typeof v === 'number' ? (Number.isFinite(v) ? String(+v.toPrecision(digits)) : '') : (v ?? '');
-	if (needsFormulaEscape(s)) s = "'" + s;
-	return /[",;\n\r\t]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
-}
-
-/** Rows of cells → CSV text (comma separator, LF line ends, trailing newline). */
-export function toCsv(rows: ReadonlyArray<ReadonlyArray<string | number | null | undefined>>): string {
-	return rows.map((r) => r.map((c) => csvCell(c)).join(',')).join('\n') + '\n';
 }

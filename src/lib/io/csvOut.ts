@@ -1,14 +1,22 @@
 /**
- * Writing plain CSV files: a commented header (lines starting with "#") that names the file, the
- * setup, the date and every column with its unit, then one header row and the data rows.
- * Numbers are written in plain decimal/exponent form with enough digits to round-trip the value
- * (`+v.toPrecision(9)`), never NaN or Infinity (such cells are left empty and said so in the header).
+ * The one CSV writer of the app and the CLI. Every cell of every export goes through `csvCell`:
  *
- * Text cells go through `csvCell`, the one place that guards against spreadsheet formula injection:
- * a text cell starting with = + - @ (or a tab / carriage return) gets a leading apostrophe, common
- * practice from the OWASP "CSV Injection" guidance — the app's one escaper, `csvCell` in csv.ts.
+ * - Numbers: plain decimal/exponent form with `digits` significant digits (default 9, enough to
+ *   round-trip the value); NaN and ±Infinity become an empty cell, never "NaN" or "Infinity".
+ * - Formula injection: a text cell starting with = + - @ (or a tab / carriage return) gets a leading
+ *   apostrophe (OWASP "CSV Injection" guidance); plain numbers such as "-50" are left as they are.
+ *   The reader (`unescapeCell` in csv.ts) drops the apostrophe again, so exports re-import unchanged.
+ * - Quoting: a cell holding a separator (comma, semicolon, tab), a quote or a line break is quoted
+ *   as RFC 4180 says, with inner quotes doubled.
+ *
+ * Two table shapes use it: `toCsv(CsvTable)` writes a commented header (lines starting with "#")
+ * naming the file, the setup, the date and every column with its unit, then one header row and the
+ * data rows (CRLF line ends); `rowsCsv(rows)` writes bare rows (header row included by the caller,
+ * LF line ends) for the lists the app also reads back (lens shelf, lab table).
  */
-import { csvCell as sharedCell } from './csv';
+import { needsFormulaEscape } from './csv';
+
+export type CsvValue = string | number | null | undefined;
 
 export interface CsvColumn {
 	/** Column name in the header row, with its unit in the name, e.g. "z_mm". */
@@ -30,15 +38,29 @@ export interface CsvTable {
 	date?: Date;
 }
 
-/** One text cell, escaped for CSV and guarded against formula injection. */
-export function csvCell(v: string): string {
-	return sharedCell(v);
+/** Significant digits of a number cell unless the caller asks for others: enough to round-trip. */
+export const CSV_DIGITS = 9;
+
+/** One number cell: `digits` significant digits, empty for non-finite values. */
+export function csvNumber(v: number, digits = CSV_DIGITS): string {
+	if (!Number.isFinite(v)) return '';
+	return String(+v.toPrecision(digits));
 }
 
-/** One number cell: round-trip digits, empty for non-finite values. */
-export function csvNumber(v: number): string {
-	if (!Number.isFinite(v)) return '';
-	return String(+v.toPrecision(9));
+/**
+ * One CSV cell (the rule in the module comment): numbers via `csvNumber`, null/undefined empty,
+ * formula-like text escaped with a leading apostrophe, quoted where it holds a separator, quote or
+ * line break.
+ */
+export function csvCell(v: CsvValue, digits = CSV_DIGITS): string {
+	let s = typeof v === 'number' ? csvNumber(v, digits) : (v ?? '');
+	if (needsFormulaEscape(s)) s = "'" + s;
+	return /[",;\n\r\t]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+}
+
+/** Bare rows of cells → CSV text (comma separator, LF line ends, trailing newline). */
+export function rowsCsv(rows: ReadonlyArray<ReadonlyArray<CsvValue>>, digits = CSV_DIGITS): string {
+	return rows.map((r) => r.map((c) => csvCell(c, digits)).join(',')).join('\n') + '\n';
 }
 
 function headerLine(s: string): string {
@@ -55,7 +77,7 @@ export function toCsv(t: CsvTable): string {
 	lines.push(headerLine('Columns:'));
 	for (const c of t.columns) lines.push(headerLine(`  ${c.name}: ${c.about}`));
 	lines.push(t.columns.map((c) => csvCell(c.name)).join(','));
-	for (const r of t.rows) lines.push(r.map((v) => (v === null ? '' : typeof v === 'number' ? csvNumber(v) : csvCell(v))).join(','));
+	for (const r of t.rows) lines.push(r.map((v) => csvCell(v)).join(','));
 	return lines.join('\r\n') + '\r\n';
 }
 

@@ -8,7 +8,8 @@
  * hazard code it calls stays free of it.
  */
 import { parseQuantity, type QuantityKind } from '../units/parse';
-import { csvCell, quantityCell, readCsv, unescapeCell } from '../io/csv';
+import { quantityCell, readCsv, unescapeCell } from '../io/csv';
+import { rowsCsv } from '../io/csvOut';
 import { assessBeam, type BeamAssessment, type BeamAssessmentInput } from './assess';
 import { caution } from './cautions';
 import { viewingCases, type ViewingCase } from './exposure';
@@ -265,10 +266,9 @@ export const exportColumns = [
 /**
  * The table as CSV; every row carries the caution, refused rows their reason in `status`. Rows that
  * could not be read at import come along (in line order) with their text, so nothing is lost. Cells
- * that a spreadsheet would run as a formula are escaped (see `src/lib/io/csv.ts`).
+ * that a spreadsheet would run as a formula are escaped (see `src/lib/io/csvOut.ts`).
  */
 export function inventoryToCsv(table: InventoryTable): string {
-	const lines = [exportColumns.join(',')];
 	type Cells = Partial<Record<(typeof exportColumns)[number], string | number>>;
 	const out: Array<{ line: number; cells: Cells }> = [];
 	for (const r of table.rows) {
@@ -303,6 +303,6 @@ export function inventoryToCsv(table: InventoryTable): string {
 	}
 	for (const x of table.rejected ?? []) out.push({ line: x.line, cells: { ...x.cells, line: x.line, status: `refused: ${x.message}`, caution: table.caution } });
 	out.sort((p, q) => p.line - q.line);
-	for (const o of out) lines.push(exportColumns.map((c) => csvCell(o.cells[c] ?? '')).join(','));
-	return lines.join('\n') + '\n';
+	// Numbers with 6 significant digits: the lab table is read by people as well as re-imported.
+	return rowsCsv([exportColumns, ...out.map((o) => exportColumns.map((c) => o.cells[c] ?? ''))], 6);
 }

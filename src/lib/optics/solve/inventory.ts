@@ -8,7 +8,8 @@
  * reader (src/lib/io/csv.ts): with semicolon or tab separators a decimal comma is accepted.
  */
 import type { StockLens } from './types';
-import { csvCell, numberCell, readCsv, unescapeCell } from '../../io/csv';
+import { numberCell, readCsv, unescapeCell } from '../../io/csv';
+import { rowsCsv } from '../../io/csvOut';
 
 /** Most lenses one list may hold (lines); a longer list is refused before it is read. */
 export const MAX_LENS_ROWS = 2000;
@@ -53,7 +54,7 @@ export function parseLensCsv(text: string): { ok: true; lenses: StockLens[] } | 
 }
 
 export function lensCsv(lenses: StockLens[]): string {
-	return ['lens,f_mm,dia_mm,qty', ...lenses.map((l) => [csvCell(l.label), csvCell(l.f_m * 1000, 10), l.diameter_m === null ? '' : csvCell(l.diameter_m * 1000, 10), csvCell(l.count)].join(','))].join('\n') + '\n';
+	return rowsCsv([['lens', 'f_mm', 'dia_mm', 'qty'], ...lenses.map((l) => [l.label, l.f_m * 1000, l.diameter_m === null ? null : l.diameter_m * 1000, l.count])], 10);
 }
 
 /**
