@@ -1,4 +1,5 @@
-import { test, expect, type Page } from '@playwright/test';
+import { type Page } from '@playwright/test';
+import { test, expect } from './support/fixtures';
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 

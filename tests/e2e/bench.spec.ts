@@ -1,4 +1,5 @@
-import { test, expect, type Page } from '@playwright/test';
+import { type Page } from '@playwright/test';
+import { test, expect } from './support/fixtures';
 
 /** Text of the waist table body, to see it change. */
 async function waistTable(page: Page) {
@@ -131,6 +132,39 @@ test('a reload restores the setup', async ({ page }) => {
 	await page.reload();
 	await expect(page.getByTestId('src-wavelength')).toHaveValue('532 nm');
 	await expect(page.getByTestId('element-L3')).toBeVisible();
+});
+
+test('a reload shows the saved setup and never the prerendered demo in its place', async ({ page }) => {
+	await page.getByTestId('src-wavelength').fill('532 nm');
+	await autosaved(page, '532 nm');
+	// Every frame of the reloaded page: what the wavelength field shows while the page is visible.
+	await page.addInitScript(() => {
+		const seen: string[] = [];
+		(window as unknown as { __seen: string[] }).__seen = seen;
+		const look = () => {
+			const main = document.querySelector('main');
+			const field = document.querySelector<HTMLInputElement>('[data-testid="src-wavelength"]');
+			if (main && field && main.checkVisibility({ visibilityProperty: true })) seen.push(field.value);
+			if (!document.documentElement.hasAttribute('data-ready') || seen.length < 3) requestAnimationFrame(look);
+		};
+		requestAnimationFrame(look);
+	});
+	await page.reload();
+	await expect(page.getByTestId('src-wavelength')).toHaveValue('532 nm');
+	await expect.poll(() => page.evaluate(() => (window as unknown as { __seen: string[] }).__seen.length)).toBeGreaterThanOrEqual(3);
+	const seen = await page.evaluate(() => (window as unknown as { __seen: string[] }).__seen);
+	expect(new Set(seen)).toEqual(new Set(['532 nm']));
+});
+
+test('a first visit gets the demo beam drawn in the page itself, before any script runs', async ({ page }) => {
+	await page.route('**/*.js', (r) => r.abort());
+	await page.goto('/');
+	const curve = page.getByTestId('curve-x');
+	await expect(curve).toBeVisible();
+	expect((await curve.getAttribute('d'))!.length).toBeGreaterThan(100);
+	await expect(page.getByTestId('src-wavelength')).toHaveValue('1064 nm');
+	// Until the scripts take over, the page says it does not answer input yet.
+	await expect(page.locator('main')).toHaveAttribute('aria-disabled', 'true');
 });
 
 test('a rejected import leaves the current work untouched and says why', async ({ page }) => {

@@ -3,7 +3,8 @@
  * technician does and checks the numbers every page shows against an independent closed form named
  * beside the check. Setups are written by the test itself (journeys.helpers.ts `setupDoc`).
  */
-import { test, expect, type Page } from '@playwright/test';
+import { type Page } from '@playwright/test';
+import { test, expect } from './support/fixtures';
 import { expectNear, expectWaistAfter, openWorkspace, rayleigh, readSI, setupDoc, startWith, thinLens, waistRows } from './journeys.helpers';
 
 const HeNe = 632.8e-9;

@@ -1,4 +1,5 @@
-import { test, expect, type Page } from '@playwright/test';
+import { type Page } from '@playwright/test';
+import { test, expect } from './support/fixtures';
 
 async function expectNoBrokenNumbers(page: Page) {
 	// Messages may quote what the user typed; everything else must be a real number.

@@ -4,7 +4,8 @@
  * Widths come from the ISO 11146-1 caustic d(z)² = d0² + Θ²(z − z0)², Θ = 4·M²·λ/(π·d0)
  * (ISO 11146-1:2005, clauses 3 and 9; from memory), so the fit must return d0, z0 and M².
  */
-import { test, expect, type Page } from '@playwright/test';
+import { type Page } from '@playwright/test';
+import { test, expect } from './support/fixtures';
 import { readCsv, download } from './csv.helpers';
 import { readSI } from './journeys.helpers';
 

@@ -1,4 +1,5 @@
-import { test, expect, type Page } from '@playwright/test';
+import { type Page } from '@playwright/test';
+import { test, expect } from './support/fixtures';
 import { readCsv, download, close4 } from './csv.helpers';
 import { readSI } from './journeys.helpers';
 

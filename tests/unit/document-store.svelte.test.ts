@@ -39,6 +39,26 @@ describe('SetupStore', () => {
 		expect(s.canUndo).toBe(false);
 	});
 
+	it('on a prerendered page, holds the demo until restoreSaved(), then shows the saved setup with no undo step and no write', () => {
+		vi.useFakeTimers();
+		const storage = new FakeStorage();
+		const first = new SetupStore(storage);
+		first.update((d) => {
+			d.source.wavelength = '633 nm';
+		});
+		vi.advanceTimersByTime(1000);
+		const writes = storage.writes;
+		const s = new SetupStore(storage, true);
+		expect(s.doc.source.wavelength).toBe(demoSetup().source.wavelength);
+		s.restoreSaved();
+		expect(s.doc.source.wavelength).toBe('633 nm');
+		expect(s.canUndo).toBe(false);
+		s.restoreSaved(); // a second call changes nothing
+		vi.advanceTimersByTime(5000);
+		expect(storage.writes).toBe(writes);
+		expect(s.doc.source.wavelength).toBe('633 nm');
+	});
+
 	it('autosaves an edit to storage shortly after the change', () => {
 		vi.useFakeTimers();
 		const storage = new FakeStorage();

@@ -81,12 +81,27 @@ export class SetupStore {
 		return this.#lastErrors;
 	});
 
-	constructor(storage: KeyValueStorage | null) {
+	#restored = false;
+
+	/**
+	 * `deferRestore`: start from the demo setup and read the autosave only when `restoreSaved()` is
+	 * called. The app does this on a page whose first view was prerendered (the demo): the page's
+	 * scripts first take over the prerendered view as it is, then the user's own setup replaces it,
+	 * which the page keeps hidden until then (app.html), so the demo's numbers are never shown as theirs.
+	 */
+	constructor(storage: KeyValueStorage | null, deferRestore = false) {
 		this.#persist = new Persistence(storage);
 		// Re-read the fields only when some text was waiting for the unit engine (no re-validation storm otherwise).
 		if (!unitEngineReady()) onUnitEngineReady(() => {
 			if (unitEngineWasNeeded()) this.unitsVersion++;
 		});
+		if (!deferRestore) this.restoreSaved();
+	}
+
+	/** Read the autosaved setup (once): it becomes the document, with no undo step and no save. */
+	restoreSaved(): void {
+		if (this.#restored) return;
+		this.#restored = true;
 		const loaded = this.#persist.load((text) => {
 			const r = parseSetupJson(text);
 			return r.ok ? null : r.reason;
@@ -277,21 +292,30 @@ let shared: SetupStore | null = null;
  * root is never destroyed with a component, so the store's derivations stay live for the whole app,
  * whichever page created it and whatever pages come and go.
  */
-export function createDetachedStore(storage: KeyValueStorage | null): SetupStore {
+export function createDetachedStore(storage: KeyValueStorage | null, deferRestore = false): SetupStore {
 	let store: SetupStore | null = null;
 	$effect.root(() => {
-		store = new SetupStore(storage);
+		store = new SetupStore(storage, deferRestore);
 	});
 	// On the server (prerender) an effect root does not run its function, and no component outlives
 	// another there, so a plain store is right.
-	return store ?? new SetupStore(storage);
+	return store ?? new SetupStore(storage, deferRestore);
 }
+
+/**
+ * Whether this page arrived with its first view prerendered (a `<main>` in the HTML before any script
+ * ran). Read when this module is first evaluated, which is before the app starts: a page rendered in
+ * the browser has an empty body then.
+ */
+const PRERENDERED = typeof document !== 'undefined' && document.querySelector('body main') !== null;
 
 /** The app's one store (browser: localStorage; server-side prerender: no storage). */
 export function getSetupStore(): SetupStore {
 	if (!shared) {
 		const storage = typeof localStorage !== 'undefined' ? localStorage : null;
-		shared = createDetachedStore(storage);
+		// A prerendered page shows the demo: the scripts take it over as rendered, and the root layout
+		// then calls restoreSaved() (see the constructor).
+		shared = createDetachedStore(storage, PRERENDERED);
 		if (typeof window !== 'undefined') {
 			// The full unit engine (mathjs) is fetched and parsed only when some text needs it: a parse
 			// that the fast path cannot read comes back `pending` and starts the load (units/parse.ts).
