@@ -1,4 +1,5 @@
-// A static, client-rendered app: every route is prerendered as a shell; all work happens in the browser.
+// A static app: every route is prerendered, as a shell that renders in the browser unless the route
+// renders its first view at build time (the Bench, src/routes/+page.ts). All work happens in the browser.
 export const prerender = true;
 export const ssr = false;
 export const trailingSlash = 'always';

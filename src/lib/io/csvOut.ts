@@ -5,7 +5,7 @@
  *   round-trip the value); NaN and ±Infinity become an empty cell, never "NaN" or "Infinity".
  * - Formula injection: a text cell starting with = + - @ (or a tab / carriage return) gets a leading
  *   apostrophe (OWASP "CSV Injection" guidance); plain numbers such as "-50" are left as they are.
- *   The reader (`unescapeCell` in csv.ts) drops the apostrophe again, so exports re-import unchanged.
+ *   The reader (`unescapeCell` in cells.ts) drops the apostrophe again, so exports re-import unchanged.
  * - Quoting: a cell holding a separator (comma, semicolon, tab), a quote or a line break is quoted
  *   as RFC 4180 says, with inner quotes doubled.
  *
@@ -14,7 +14,7 @@
  * data rows (CRLF line ends); `rowsCsv(rows)` writes bare rows (header row included by the caller,
  * LF line ends) for the lists the app also reads back (lens shelf, lab table).
  */
-import { needsFormulaEscape } from './csv';
+import { needsFormulaEscape } from './cells';
 
 export type CsvValue = string | number | null | undefined;
 
