@@ -1,5 +1,5 @@
 import { type Page } from '@playwright/test';
-import { test, expect } from './support/fixtures';
+import { test, expect } from '@playwright/test';
 
 /** Text of the waist table body, to see it change. */
 async function waistTable(page: Page) {
