@@ -48,9 +48,14 @@ for (const s of visits) {
 }
 
 /** The setup document the app has saved in this browser (waits for the autosave). */
-async function savedDoc(page: Page) {
-	await expect.poll(() => page.evaluate(() => localStorage.getItem('beamwright.setup.v1') !== null), { timeout: 15_000 }).toBe(true);
-	return page.evaluate(() => JSON.parse(localStorage.getItem('beamwright.setup.v1')!));
+/**
+ * The autosaved document once it has `count` elements. The page seeded a document at the start, and
+ * autosave waits a moment after an edit, so the wait is for the edit itself, not only for a saved key.
+ */
+async function savedDoc(page: Page, count: number) {
+	const read = () => page.evaluate(() => JSON.parse(localStorage.getItem('beamwright.setup.v1') ?? '{"elements":[]}'));
+	await expect.poll(async () => (await read()).elements?.length ?? 0, { timeout: 15_000 }).toBe(count);
+	return read();
 }
 const mm = (text: string) => readSI(text);
 
@@ -95,7 +100,7 @@ test('(b) Match → Put on the bench: the bench shows the solution and its waist
 	await expect(page.getByTestId('element-table')).toContainText('ML2');
 	// The lenses as placed (the document's text), pushed through Self's (1983) thin-lens formula from
 	// the source waist (0.5 mm at z = 0, 632.8 nm): the result must be the target, 60 µm at 700 mm.
-	const doc = await savedDoc(page);
+	const doc = await savedDoc(page, 2);
 	const lenses = doc.elements.map((e: { at: string; params: { f: string } }) => ({ z_m: mm(e.at), f_m: mm(e.params.f) }));
 	expect(lenses.length).toBe(2);
 	const closed = throughLenses(0.5e-3, 0, HeNe, lenses);
