@@ -100,9 +100,10 @@ function probe(view: string): string {
 	};
 	requestAnimationFrame(look);
 	// The app marks <html data-ready> once its scripts have taken the page over (input is answered from then on).
+	// Watched from the document: an init script can run before <html> exists.
 	new MutationObserver((_, obs) => {
-		if (document.documentElement.hasAttribute('data-ready')) { w.__ready = performance.now(); obs.disconnect(); }
-	}).observe(document.documentElement, { attributes: true, attributeFilter: ['data-ready'] });
+		if (document.documentElement && document.documentElement.hasAttribute('data-ready')) { w.__ready = performance.now(); obs.disconnect(); }
+	}).observe(document, { subtree: true, attributes: true, attributeFilter: ['data-ready'] });
 	w.__lat = [];
 	w.__moved = 0;
 	addEventListener('pointermove', (ev) => {
