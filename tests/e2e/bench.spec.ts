@@ -175,6 +175,14 @@ test('a rejected import leaves the current work untouched and says why', async (
 	await expect(page.getByTestId('src-wavelength')).toHaveValue('780 nm');
 });
 
+test('the setup bar stays put when the autosave status appears (a click meant for New… lands on New…)', async ({ page }) => {
+	const before = await page.getByTestId('new').boundingBox();
+	await expect(page.getByTestId('autosave-status')).toHaveText('');
+	await page.getByTestId('src-wavelength').fill('633 nm');
+	await expect(page.getByTestId('autosave-status')).toHaveText('Autosaved in this browser');
+	expect(await page.getByTestId('new').boundingBox()).toEqual(before);
+});
+
 test('export then import round-trips the setup', async ({ page }) => {
 	await page.getByTestId('src-wavelength').fill('633 nm');
 	const download = page.waitForEvent('download');
