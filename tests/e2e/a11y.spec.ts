@@ -1,5 +1,5 @@
 import { type Page } from '@playwright/test';
-import { test, expect } from '@playwright/test';
+import { test, expect } from './support/fixtures';
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 

@@ -1,5 +1,5 @@
 import { type Page } from '@playwright/test';
-import { test, expect } from '@playwright/test';
+import { test, expect } from './support/fixtures';
 
 /** Text of the waist table body, to see it change. */
 async function waistTable(page: Page) {
@@ -17,7 +17,7 @@ async function autosaved(page: Page, text: string) {
 	await expect.poll(() => page.evaluate(() => Object.values(localStorage).join('\n'))).toContain(text);
 }
 
-// Each test gets a fresh browser context (Playwright's default), so storage starts empty: one page load.
+// Each test starts with empty storage (the shared page is reset before it, see support/fixtures.ts): one page load.
 test.beforeEach(async ({ page }) => {
 	expect(await page.context().storageState()).toEqual({ cookies: [], origins: [] });
 	await page.goto('/');
@@ -227,13 +227,14 @@ test('a damaged link is refused and the current setup stays', async ({ page }) =
  */
 async function refusesBadInput(page: Page, prefix: string) {
 	const bad = ['', 'abc', '5 kg', '1e400 m', 'NaN'];
-	const inputs = page.locator(`[data-testid^="${prefix}"]`);
-	const n = await inputs.count();
-	expect(n, `fields for ${prefix}`).toBeGreaterThan(0);
-	for (let k = 0; k < n; k++) {
-		const input = inputs.nth(k);
-		if ((await input.evaluate((el) => (el as HTMLInputElement).type)) !== 'text') continue;
-		const id = await input.getAttribute('data-testid');
+	// The text fields, by test id (not by position: a field that came or went would shift the rest).
+	const ids = await page
+		.locator(`input[data-testid^="${prefix}"]`)
+		.evaluateAll((els) => els.filter((el) => (el as HTMLInputElement).type === 'text').map((el) => el.getAttribute('data-testid') ?? ''));
+	expect(ids.length, `fields for ${prefix}`).toBeGreaterThan(0);
+	expect(new Set(ids).size, `test ids of the fields for ${prefix} are unique`).toBe(ids.length);
+	for (const [k, id] of ids.entries()) {
+		const input = page.getByTestId(id);
 		const original = await input.inputValue();
 		for (const b of k === 0 ? bad : ['5 kg']) {
 			// A blank clear aperture means "no aperture": the one blank that is valid.

@@ -4,7 +4,7 @@
  * beside the check. Setups are written by the test itself (journeys.helpers.ts `setupDoc`).
  */
 import { type Page } from '@playwright/test';
-import { test, expect } from '@playwright/test';
+import { test, expect } from './support/fixtures';
 import { expectNear, expectWaistAfter, openWorkspace, rayleigh, readSI, setupDoc, startWith, thinLens, waistRows } from './journeys.helpers';
 
 const HeNe = 632.8e-9;

@@ -1,5 +1,5 @@
 import { type Page } from '@playwright/test';
-import { test, expect } from '@playwright/test';
+import { test, expect } from './support/fixtures';
 
 async function expectNoBrokenNumbers(page: Page) {
 	// Messages may quote what the user typed; everything else must be a real number.

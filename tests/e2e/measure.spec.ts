@@ -5,7 +5,7 @@
  * (ISO 11146-1:2005, clauses 3 and 9; from memory), so the fit must return d0, z0 and M².
  */
 import { type Page } from '@playwright/test';
-import { test, expect } from '@playwright/test';
+import { test, expect } from './support/fixtures';
 import { readCsv, download } from './csv.helpers';
 import { readSI } from './journeys.helpers';
 

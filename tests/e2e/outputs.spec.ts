@@ -1,4 +1,4 @@
-import { test, expect } from '@playwright/test';
+import { test, expect } from './support/fixtures';
 import { readFileSync } from 'node:fs';
 import { readCsv, download, close4 } from './csv.helpers';
 import { readSI } from './journeys.helpers';

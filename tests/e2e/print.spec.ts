@@ -1,5 +1,5 @@
 import { type Page } from '@playwright/test';
-import { test, expect } from '@playwright/test';
+import { test, expect } from './support/fixtures';
 
 // 170 mm at 96 px per inch: the printable width the summary is laid out for (A4 and Letter less margins).
 const PRINT_WIDTH_PX = Math.floor((170 / 25.4) * 96);

@@ -1,5 +1,5 @@
 import { type Page } from '@playwright/test';
-import { test, expect } from '@playwright/test';
+import { test, expect } from './support/fixtures';
 import { readCsv, download, close4 } from './csv.helpers';
 import { readSI } from './journeys.helpers';
 

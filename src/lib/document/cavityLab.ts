@@ -22,41 +22,8 @@ import { compileSetup } from './compile';
 import type { SetupDoc } from './schema';
 import type { CompiledMatch } from './match';
 
-const text = v.string();
-
-export const LabSchema = v.object({
-	/** Power reflectivity of the input mirror (mirror 1) and the output mirror: "0.99" or "99 %". */
-	reflectivity1: v.optional(text, '99 %'),
-	reflectivity2: v.optional(text, '99 %'),
-	/** Round-trip loss besides the two mirrors' transmissions. */
-	loss: v.optional(text, '0 %'),
-	/** Two steering mirrors before the cavity: bench positions, angle of incidence, mount angle per knob turn. */
-	steer1At: v.optional(text, '100 mm'),
-	steer2At: v.optional(text, '300 mm'),
-	steerAngle: v.optional(text, '45°'),
-	anglePerTurn: v.optional(text, '8 mrad'),
-	/** The perturbation tried on the bench: offsets and tilts at the cavity waist, and a lens moved along the rail. */
-	perturb: v.optional(
-		v.object({ offsetX: text, offsetY: text, tiltX: text, tiltY: text, lensId: text, lensShift: text }),
-		{ offsetX: '0 µm', offsetY: '0 µm', tiltX: '0 mrad', tiltY: '0 mrad', lensId: '', lensShift: '0 mm' }
-	),
-	/** Peak heights read off a transmitted scan (any one unit), '' for not entered. */
-	peaks: v.optional(v.object({ p00: text, p10: text, p01: text, p20: text, p02: text, p11: text, sum: text, noise: text }), {
-		p00: '',
-		p10: '',
-		p01: '',
-		p20: '',
-		p02: '',
-		p11: '',
-		sum: '',
-		noise: '1 %'
-	})
-});
-export type LabSection = v.InferOutput<typeof LabSchema>;
-
-export function defaultLab(): LabSection {
-	return v.parse(LabSchema, {});
-}
+export { LabSchema, defaultLab, type LabSection } from './sectionDefaults';
+import { LabSchema, defaultLab, type LabSection } from './sectionDefaults';
 
 /** Read `match.lab` (defaults for what is missing). */
 export function readLab(match: unknown): LabSection {

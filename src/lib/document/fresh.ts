@@ -4,7 +4,7 @@
  * no keep-out zone, no example laser name or exposure duration, no measured widths).
  */
 import { emptySetup } from './demo';
-import { emptyMatchSection } from './match';
+import { emptyMatchSection } from './sectionDefaults';
 import type { SetupDoc } from './schema';
 
 /** Every workspace empty. */

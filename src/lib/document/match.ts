@@ -25,6 +25,8 @@ import { compileSetup, compileSource, type FieldError } from './compile';
 import type { SetupDoc } from './schema';
 import { repairSection } from './repair';
 import { LabSchema, defaultLab, type CavityGeometry } from './cavityLab';
+import { defaultSubstrate } from './sectionDefaults';
+export { defaultSubstrate, emptyMatchSection } from './sectionDefaults';
 import { roundTripMatrices } from '../optics/cavity';
 
 /** Element ids of lenses that the Match workspace put on the bench start with this. */
@@ -58,10 +60,6 @@ export function defaultRing(): RingSection {
 	};
 }
 
-/** No substrate lens (thickness left empty); fused silica and a flat back face once a thickness is typed. */
-export function defaultSubstrate(): { thickness: string; n: string; rBack: string } {
-	return { thickness: '', n: '1.45', rBack: 'flat' };
-}
 
 export const MatchSectionSchema = v.object({
 	/** Where the beam to be matched comes from: the bench's source itself, or the bench's beam at the rail start. */
@@ -130,25 +128,6 @@ export function defaultMatchSection(): MatchSection {
 	};
 }
 
-/**
- * An empty section for a new setup: no target values, no lenses on the shelf, no keep-out zones, no
- * lens ranges — nothing from the example constrains a search unseen.
- */
-export function emptyMatchSection(): MatchSection {
-	return {
-		input: { from: 'source' },
-		target: { kind: 'waist', at: '', wx: '', wy: '', r1: '', r2: '', length: '', lensF: '', lensAt: '', substrate: defaultSubstrate(), ring: { type: 'ring', mirrors: [], input: 0 }, fiberBy: 'mfd', mfd: '', coreRadius: '', na: '' },
-		inventory: [],
-		rail: { from: '', to: '' },
-		slots: [],
-		keepOut: [],
-		minSpacing: '0 mm',
-		lensCounts: [1, 2],
-		rankBy: 'robust',
-		expander: { magMin: '', magMax: '', lens1At: '', waistAfter: '' },
-		lab: defaultLab()
-	};
-}
 
 /**
  * Read the stored section (filling defaults for optional parts), repairing field by field: a field
