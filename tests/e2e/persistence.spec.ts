@@ -153,8 +153,8 @@ test.describe('with the service worker (blocked in the other specs)', () => {
 			});
 			await expect(page.getByTestId('update-ready')).toContainText('A new version of Beamwright is ready', { timeout: 20_000 });
 			// The page is not switched under the user: they choose when to reload.
-			await page.getByTestId('update-reload').click();
-			await page.waitForEvent('load');
+			// (Listening for the load before the click: a quick reload could otherwise finish first.)
+			await Promise.all([page.waitForEvent('load'), page.getByTestId('update-reload').click()]);
 			await expect(page.getByTestId('caustic-plot')).toBeVisible();
 			await expect(page.getByTestId('update-ready')).toHaveCount(0);
 		} finally {
