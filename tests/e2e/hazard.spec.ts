@@ -43,6 +43,41 @@ test('the workspace computes the reference beam and keeps the cautions in view',
 	await expectNoBrokenNumbers(page);
 });
 
+test('a first visit gets the demo estimate and every caution in the page itself, before any script runs', async ({ page }) => {
+	// The Hazard page is prerendered: the numbers it shows before its scripts run must be the right
+	// ones (the same closed form as above), and never without the cautions.
+	const P = 5, E = (18 * 0.25 ** 0.75) / 0.25, d = 2.83e-3, Th = 1.41e-3;
+	const formula = (Math.sqrt((4 * P) / (Math.PI * E)) - d / Math.SQRT2) / (Th / Math.SQRT2);
+	await page.route('**/*.js', (r) => r.abort());
+	await page.goto('/hazard/');
+	await expect(page.getByTestId('hz-plot')).toBeVisible();
+	await expect(page.getByTestId('hz-nohd-formula')).toHaveText(`${formula.toFixed(1)} m`);
+	for (const c of cautions) await expect(page.getByTestId('cautions')).toContainText(c);
+	await expect(page.locator('main')).toHaveAttribute('aria-disabled', 'true');
+});
+
+test('a reload shows the saved laser and never the prerendered demo in its place', async ({ page }) => {
+	await page.getByTestId('hz-power').fill('50 mW');
+	await expect.poll(() => page.evaluate(() => Object.values(localStorage).join('\n'))).toContain('50 mW');
+	// Every frame of the reloaded page: the power shown while the page is visible.
+	await page.addInitScript(() => {
+		const seen: string[] = [];
+		(window as unknown as { __seen: string[] }).__seen = seen;
+		const look = () => {
+			const main = document.querySelector('main');
+			const field = document.querySelector<HTMLInputElement>('[data-testid="hz-power"]');
+			if (main && field && main.checkVisibility({ visibilityProperty: true })) seen.push(field.value);
+			if (!document.documentElement.hasAttribute('data-ready') || seen.length < 3) requestAnimationFrame(look);
+		};
+		requestAnimationFrame(look);
+	});
+	await page.reload();
+	await expect(page.getByTestId('hz-power')).toHaveValue('50 mW');
+	await expect.poll(() => page.evaluate(() => (window as unknown as { __seen: string[] }).__seen.length)).toBeGreaterThanOrEqual(3);
+	const seen = await page.evaluate(() => (window as unknown as { __seen: string[] }).__seen);
+	expect(new Set(seen)).toEqual(new Set(['50 mW']));
+});
+
 test('editing the power changes the distances; a bad wavelength is refused with the rule', async ({ page }) => {
 	await page.getByTestId('hz-power').fill('50 mW');
 	await expect(page.getByTestId('hz-nohd-formula')).not.toHaveText('499.6 m');
