@@ -60,7 +60,6 @@ export function defaultRing(): RingSection {
 	};
 }
 
-
 export const MatchSectionSchema = v.object({
 	/** Where the beam to be matched comes from: the bench's source itself, or the bench's beam at the rail start. */
 	input: v.optional(v.object({ from: v.picklist(['source', 'bench']) }), { from: 'source' }),
@@ -127,7 +126,6 @@ export function defaultMatchSection(): MatchSection {
 		lab: defaultLab()
 	};
 }
-
 
 /**
  * Read the stored section (filling defaults for optional parts), repairing field by field: a field
