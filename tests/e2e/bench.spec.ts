@@ -1,5 +1,6 @@
 import { type Page } from '@playwright/test';
 import { test, expect } from './support/fixtures';
+import { fieldValuesShown, recordFieldWhileShown } from './support/frames';
 
 /** Text of the waist table body, to see it change. */
 async function waistTable(page: Page) {
@@ -138,22 +139,10 @@ test('a reload shows the saved setup and never the prerendered demo in its place
 	await page.getByTestId('src-wavelength').fill('532 nm');
 	await autosaved(page, '532 nm');
 	// Every frame of the reloaded page: what the wavelength field shows while the page is visible.
-	await page.addInitScript(() => {
-		const seen: string[] = [];
-		(window as unknown as { __seen: string[] }).__seen = seen;
-		const look = () => {
-			const main = document.querySelector('main');
-			const field = document.querySelector<HTMLInputElement>('[data-testid="src-wavelength"]');
-			if (main && field && main.checkVisibility({ visibilityProperty: true })) seen.push(field.value);
-			if (!document.documentElement.hasAttribute('data-ready') || seen.length < 3) requestAnimationFrame(look);
-		};
-		requestAnimationFrame(look);
-	});
+	await recordFieldWhileShown(page, 'src-wavelength');
 	await page.reload();
 	await expect(page.getByTestId('src-wavelength')).toHaveValue('532 nm');
-	await expect.poll(() => page.evaluate(() => (window as unknown as { __seen: string[] }).__seen.length)).toBeGreaterThanOrEqual(3);
-	const seen = await page.evaluate(() => (window as unknown as { __seen: string[] }).__seen);
-	expect(new Set(seen)).toEqual(new Set(['532 nm']));
+	expect(new Set(await fieldValuesShown(page))).toEqual(new Set(['532 nm']));
 });
 
 test('a first visit gets the demo beam drawn in the page itself, before any script runs', async ({ page }) => {

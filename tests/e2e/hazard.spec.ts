@@ -1,5 +1,6 @@
 import { type Page } from '@playwright/test';
 import { test, expect } from './support/fixtures';
+import { fieldValuesShown, recordFieldWhileShown } from './support/frames';
 import { readCsv, download, close4 } from './csv.helpers';
 import { readSI } from './journeys.helpers';
 
@@ -60,22 +61,10 @@ test('a reload shows the saved laser and never the prerendered demo in its place
 	await page.getByTestId('hz-power').fill('50 mW');
 	await expect.poll(() => page.evaluate(() => Object.values(localStorage).join('\n'))).toContain('50 mW');
 	// Every frame of the reloaded page: the power shown while the page is visible.
-	await page.addInitScript(() => {
-		const seen: string[] = [];
-		(window as unknown as { __seen: string[] }).__seen = seen;
-		const look = () => {
-			const main = document.querySelector('main');
-			const field = document.querySelector<HTMLInputElement>('[data-testid="hz-power"]');
-			if (main && field && main.checkVisibility({ visibilityProperty: true })) seen.push(field.value);
-			if (!document.documentElement.hasAttribute('data-ready') || seen.length < 3) requestAnimationFrame(look);
-		};
-		requestAnimationFrame(look);
-	});
+	await recordFieldWhileShown(page, 'hz-power');
 	await page.reload();
 	await expect(page.getByTestId('hz-power')).toHaveValue('50 mW');
-	await expect.poll(() => page.evaluate(() => (window as unknown as { __seen: string[] }).__seen.length)).toBeGreaterThanOrEqual(3);
-	const seen = await page.evaluate(() => (window as unknown as { __seen: string[] }).__seen);
-	expect(new Set(seen)).toEqual(new Set(['50 mW']));
+	expect(new Set(await fieldValuesShown(page))).toEqual(new Set(['50 mW']));
 });
 
 test('editing the power changes the distances; a bad wavelength is refused with the rule', async ({ page }) => {
