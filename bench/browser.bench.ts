@@ -45,8 +45,9 @@ const ALL_PAGES: { path: string; name: string; view: string }[] = [
 	{ path: '/match/', name: 'match', view: '[data-testid="input-table"]' },
 	// Measure shows its form until data arrive (no plot yet).
 	{ path: '/measure/', name: 'measure', view: 'main h1, main h2' },
-	{ path: '/scan/', name: 'scan', view: '[data-testid="scan-plot"]' },
-	{ path: '/hazard/', name: 'hazard', view: '[data-testid="hz-plot"]' }
+	// The plots' own curves, not just their frames: a frame can be in the page before anything is drawn in it.
+	{ path: '/scan/', name: 'scan', view: '[data-testid="scan-transmitted"]' },
+	{ path: '/hazard/', name: 'hazard', view: '[data-testid="hz-plot"] path.series' }
 ];
 const PAGE_NAMES = process.env.BW_BENCH_PAGES?.split(',').map((p) => p.trim());
 const PAGES = PAGE_NAMES ? ALL_PAGES.filter((p) => PAGE_NAMES.includes(p.name)) : ALL_PAGES;

@@ -147,7 +147,7 @@ test('a reload shows the saved setup and never the prerendered demo in its place
 
 test('a first visit gets the demo beam drawn in the page itself, before any script runs', async ({ page }) => {
 	await page.route('**/*.js', (r) => r.abort());
-	await page.goto('/');
+	await page.goto('/', { waitUntil: 'load' }); // the page as loaded: its scripts never take it over
 	const curve = page.getByTestId('curve-x');
 	await expect(curve).toBeVisible();
 	expect((await curve.getAttribute('d'))!.length).toBeGreaterThan(100);

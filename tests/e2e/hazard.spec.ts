@@ -50,8 +50,10 @@ test('a first visit gets the demo estimate and every caution in the page itself,
 	const P = 5, E = (18 * 0.25 ** 0.75) / 0.25, d = 2.83e-3, Th = 1.41e-3;
 	const formula = (Math.sqrt((4 * P) / (Math.PI * E)) - d / Math.SQRT2) / (Th / Math.SQRT2);
 	await page.route('**/*.js', (r) => r.abort());
-	await page.goto('/hazard/');
+	await page.goto('/hazard/', { waitUntil: 'load' }); // the page as loaded: its scripts never take it over
 	await expect(page.getByTestId('hz-plot')).toBeVisible();
+	// The plot is drawn in the page itself, not only its frame.
+	expect((await page.getByTestId('hz-plot').locator('path.series').first().getAttribute('d'))!.length).toBeGreaterThan(100);
 	await expect(page.getByTestId('hz-nohd-formula')).toHaveText(`${formula.toFixed(1)} m`);
 	for (const c of cautions) await expect(page.getByTestId('cautions')).toContainText(c);
 	await expect(page.locator('main')).toHaveAttribute('aria-disabled', 'true');

@@ -15,6 +15,13 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { writeBeamY4m, type BeamFrameSpec } from './support/y4m';
 import { chromiumLaunch } from './support/chromium';
+import { gotoWaitsForApp } from './support/ready';
+
+// Every page of the app in these tests: `goto` resolves once the app has taken the page over.
+test.beforeEach(({ page, context }) => {
+	gotoWaitsForApp(page);
+	context.on('page', (p) => void gotoWaitsForApp(p));
+});
 
 const dir = mkdtempSync(join(tmpdir(), 'bw-cam-'));
 const video = join(dir, 'camera.y4m');

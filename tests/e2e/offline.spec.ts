@@ -1,5 +1,12 @@
 import { test, expect } from '@playwright/test';
 import { openUnderServiceWorker } from './support/sw';
+import { gotoWaitsForApp } from './support/ready';
+
+// Every page of the app in these tests: `goto` resolves once the app has taken the page over.
+test.beforeEach(({ page, context }) => {
+	gotoWaitsForApp(page);
+	context.on('page', (p) => void gotoWaitsForApp(p));
+});
 
 // The service worker is what this file tests (the other specs block it).
 test.use({ serviceWorkers: 'allow' });

@@ -5,6 +5,13 @@
 import { test, expect, type Page } from '@playwright/test';
 import { readFileSync, writeFileSync } from 'node:fs';
 import { openUnderServiceWorker } from './support/sw';
+import { gotoWaitsForApp } from './support/ready';
+
+// Every page of the app in these tests: `goto` resolves once the app has taken the page over.
+test.beforeEach(({ page, context }) => {
+	gotoWaitsForApp(page);
+	context.on('page', (p) => void gotoWaitsForApp(p));
+});
 
 const KEY = 'beamwright.setup.v1';
 

@@ -85,3 +85,18 @@ test('bad input names the field and keeps the text; peaks adding up to more than
 	await expect(page.getByTestId('peak-sum')).toHaveValue('0.5');
 	await expectNoBrokenNumbers(page);
 });
+
+test('a first visit gets the predicted scan drawn in the page itself, before any script runs, with the numbers the app then shows', async ({ page }) => {
+	await page.route('**/*.js', (r) => r.abort());
+	await page.goto('/scan/', { waitUntil: 'load' }); // the page as loaded: its scripts never take it over
+	expect((await page.getByTestId('scan-transmitted').getAttribute('d'))!.length).toBeGreaterThan(100);
+	await expect(page.getByTestId('scan-peak-label').first()).toContainText('TEM');
+	const before = await page.getByTestId('mode-peak-00').getAttribute('data-value');
+	expect(Number(before)).toBeGreaterThan(0);
+	await expect(page.locator('main')).toHaveAttribute('aria-disabled', 'true');
+	await page.unrouteAll();
+	await page.goto('/scan/');
+	await expect(page.locator('main')).not.toHaveAttribute('aria-disabled');
+	expect(await page.getByTestId('mode-peak-00').getAttribute('data-value')).toBe(before);
+	expect((await page.getByTestId('scan-transmitted').getAttribute('d'))!.length).toBeGreaterThan(100);
+});

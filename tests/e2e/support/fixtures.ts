@@ -8,10 +8,13 @@
  * nothing a previous test installed on the page (init scripts, event listeners, routes) is left. Each
  * test still loads the app itself, so no JavaScript state carries over.
  *
+ * `page.goto` and `page.reload` resolve once the app has taken the page over (support/ready.ts).
+ *
  * Specs that need a context of their own (several tabs, offline, service workers, camera permissions)
  * import `test` from '@playwright/test' and get Playwright's per-test context.
  */
 import { test as base, type Page, type BrowserContext } from '@playwright/test';
+import { gotoWaitsForApp } from './ready';
 
 const VIEWPORT = { width: 1280, height: 720 };
 const RESET_PATH = '/__test-reset';
@@ -69,9 +72,11 @@ export const test = base.extend<object, { workerPage: { context: BrowserContext 
 			listeners.push([event, fn]);
 			return (once as unknown as Subscribe).call(page, event, fn);
 		}) as Page['once'];
+		const putBack = gotoWaitsForApp(page);
 		try {
 			await use(page);
 		} finally {
+			putBack();
 			page.addInitScript = addInitScript;
 			page.on = on;
 			page.once = once;
