@@ -2,9 +2,10 @@
  * Browser figures, measured in Debian's Chromium on this machine against the static build served by
  * scripts/serve.js (precompressed gzip / brotli, as a user gets it). Every figure stands beside a
  * reference measured in the same run, and its goal is the ratio to that reference:
- * - Bytes, per page: the files the route needs for its first view (the page's HTML, the modules and
- *   stylesheets it links, and any other file the browser fetched before the first view was drawn),
- *   counted as sent by the server with `Accept-Encoding: gzip` and `br`. The service-worker precache
+ * - Bytes, per page: the files its first view needs (the page's HTML with its stylesheets, and any other
+ *   file fetched before the first view was drawn), and the JS it loads until it answers input (every
+ *   module its HTML names, and whatever else was fetched until then), counted as sent by the server
+ *   with `Accept-Encoding: gzip` and `br`. The service-worker precache
  *   (every file of the build, fetched once the browser is idle) is reported on its own.
  * - Load, per page: cold loads (fresh profile, cache disabled through CDP), median of BW_BENCH_LOADS
  *   (default 10). "First view" is the end of the first frame that shows the page's plot (the beam
@@ -213,23 +214,28 @@ function listFiles(dir: string, out: string[] = []): string[] {
 	return out;
 }
 
-/** What the route needs for its first view: its HTML, the modules and stylesheets it links, and the browser's own requests up to the first view. */
-async function routeFiles(browser: Browser, pg: (typeof PAGES)[number]): Promise<string[]> {
+/**
+ * What the route needs, counted from the route itself (not by a timer): `view`, the files fetched before
+ * its first view was drawn (a prerendered page: its HTML, which holds its stylesheets); `takeover`, every
+ * module its HTML names (module preloads, or the list its deferred boot script adds once the first view
+ * is drawn, src/lib/boot/deferBoot.ts) and every file fetched until the app answered input (`data-ready`).
+ */
+async function routeFiles(browser: Browser, pg: (typeof PAGES)[number]): Promise<{ view: string[]; takeover: string[] }> {
 	const html = readFileSync(join('build', pg.path, 'index.html'), 'utf8');
-	const need = new Set<string>([pg.path]);
-	for (const m of html.matchAll(/<link[^>]+href="([^"]+)"[^>]*>/g)) if (/rel="(modulepreload|stylesheet|preload|icon|manifest)"/.test(m[0])) need.add(new globalThis.URL(m[1], ORIGIN + pg.path).pathname);
-	for (const m of html.matchAll(/import\("([^"]+)"\)/g)) need.add(new globalThis.URL(m[1], ORIGIN + pg.path).pathname);
+	const named = new Set<string>();
+	for (const m of html.matchAll(/<link[^>]+href="([^"]+)"[^>]*>/g)) if (/rel="(modulepreload|stylesheet|preload|icon|manifest)"/.test(m[0]) && !/disabled/.test(m[0])) named.add(new globalThis.URL(m[1], ORIGIN + pg.path).pathname);
+	for (const m of html.matchAll(/"(\.\.?\/[^"]*_app\/immutable\/[^"]+\.js)"/g)) named.add(new globalThis.URL(m[1], ORIGIN + pg.path).pathname);
 	const page = await freshPage(browser, probe(pg.view));
-	const seen: string[] = [];
-	page.on('request', (r) => {
-		const u = new globalThis.URL(r.url());
-		if (u.origin === ORIGIN && !u.pathname.startsWith('/__bench')) seen.push(u.pathname);
-	});
 	await page.goto(ORIGIN + pg.path, { waitUntil: 'commit' });
-	await page.waitForFunction('window.__firstView !== undefined', undefined, { timeout: 60_000, polling: 50 });
-	for (const p of seen) need.add(p);
+	await page.waitForFunction('window.__firstView !== undefined && window.__ready !== undefined', undefined, { timeout: 60_000, polling: 50 });
+	// Each request's start as the page itself timed it, against the end of the frame of the first view.
+	const seen = (await page.evaluate(`(() => performance.getEntriesByType('resource').map((e) => ({ url: e.name, at: e.startTime <= window.__firstView })))()`)) as { url: string; at: boolean }[];
 	await page.context().close();
-	return [...need].filter((p) => !p.endsWith('service-worker.js'));
+	const ours = seen.map((r) => ({ path: new globalThis.URL(r.url).pathname, before: r.at, origin: new globalThis.URL(r.url).origin })).filter((r) => r.origin === ORIGIN && !r.path.startsWith('/__bench'));
+	const noSw = (p: string) => !p.endsWith('service-worker.js');
+	const view = [...new Set([pg.path, ...ours.filter((r) => r.before).map((r) => r.path)])].filter(noSw);
+	const takeover = [...new Set([...named, ...ours.map((r) => r.path)])].filter((p) => noSw(p) && p !== pg.path && !view.includes(p));
+	return { view, takeover };
 }
 
 export async function run(): Promise<Row[]> {
@@ -247,21 +253,21 @@ export async function run(): Promise<Row[]> {
 	try {
 		// Bytes: what each route needs, as sent.
 		if (PARTS.has('bytes')) {
-			for (const pg of PAGES) {
-				const files = await routeFiles(browser, pg);
-				let jsGz = 0, jsBr = 0, allGz = 0, allBr = 0;
+			const sent = async (files: string[]) => {
+				let gz = 0, br = 0;
 				for (const f of files) {
-					const gz = await sentBytes(f, 'gzip');
-					const br = await sentBytes(f, 'br');
-					allGz += gz;
-					allBr += br;
-					if (f.endsWith('.js')) {
-						jsGz += gz;
-						jsBr += br;
-					}
+					gz += await sentBytes(f, 'gzip');
+					br += await sentBytes(f, 'br');
 				}
-				rows.push({ figure: `bytes, ${pg.name}: JS for the first view (gzip / brotli sent)`, value: kB(jsGz), unit: 'kB', goal: `brotli ${kB(jsBr).toFixed(1)} kB; ${files.filter((f) => f.endsWith('.js')).length} files` });
-				rows.push({ figure: `bytes, ${pg.name}: all files for the first view (gzip / brotli)`, value: kB(allGz), unit: 'kB', goal: `brotli ${kB(allBr).toFixed(1)} kB; ${files.length} files` });
+				return { gz, br };
+			};
+			for (const pg of PAGES) {
+				const { view, takeover } = await routeFiles(browser, pg);
+				const v = await sent(view);
+				const js = takeover.filter((f) => f.endsWith('.js'));
+				const t = await sent(js);
+				rows.push({ figure: `bytes, ${pg.name}: all files for the first view (gzip / brotli)`, value: kB(v.gz), unit: 'kB', goal: `brotli ${kB(v.br).toFixed(1)} kB; ${view.length} files` });
+				rows.push({ figure: `bytes, ${pg.name}: JS until it answers input (gzip / brotli)`, value: kB(t.gz), unit: 'kB', goal: `brotli ${kB(t.br).toFixed(1)} kB; ${js.length} files, fetched after the first view` });
 			}
 			const all = listFiles('build').map((p) => p.slice('build'.length).replace(/\\/g, '/'));
 			let preGz = 0, preBr = 0;
