@@ -216,3 +216,15 @@ test('cavities on the stability boundary show the limit and why; the input mirro
 	await expect(page.getByTestId('target-sub-n')).toHaveValue('0.5');
 	await expectNoBrokenNumbers(page);
 });
+
+test('the parts below the first screen are built just after the take-over; a link to one of their headings lands on it', async ({ page }) => {
+	// Not in the prerendered page (its take-over stays one short task), there once the app has it.
+	const html = await (await page.request.get('/match/')).text();
+	expect(html).toContain('<div id="res-h"></div>'); // the heading's place, so that links to it stay valid
+	expect(html).not.toContain('<h2 id="res-h"');
+	await expect(page.getByRole('heading', { name: '5 · Search and results' })).toBeVisible();
+	await expect(page.getByRole('heading', { name: '4 · Where the lenses may go' })).toBeVisible();
+	// A link to the search heading, opened fresh: the heading is scrolled into view once it is built.
+	await page.goto('/match/#res-h');
+	await expect(page.getByRole('heading', { name: '5 · Search and results' })).toBeInViewport();
+});
