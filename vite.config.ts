@@ -1,6 +1,10 @@
 import { sveltekit } from '@sveltejs/kit/vite';
 import { defineConfig } from 'vitest/config';
 
+// Shared by several pages but never needed by the Bench, and each pulling a library in with it (the
+// plots' axes: layercake and d3; the CSV reader: papaparse; the section repair: its schemas).
+const NOT_CORE = /src[\\/]lib[\\/](ui[\\/]plot[\\/]Axis[XY]\.svelte|io[\\/]csv\.ts|document[\\/]repair\.ts)$/;
+
 export default defineConfig({
 	plugins: [sveltekit()],
 	worker: { format: 'es' },
@@ -10,12 +14,14 @@ export default defineConfig({
 				// Fewer, larger files for a page's first load: left to itself the bundler cut the framework
 				// (Svelte's runtime, SvelteKit's client) and the library code every workspace shares into pieces
 				// of a few hundred bytes, and a first load waited for rounds of requests (a browser opens at most
-				// 6 connections to a host over HTTP/1.1). 'framework': Svelte and SvelteKit; 'core': modules of
-				// src/lib used by 3 or more of the app's entries (routes, workers, lazy imports).
+				// 6 connections to a host over HTTP/1.1). 'framework': Svelte and SvelteKit. 'core': modules of
+				// src/lib used by 3 or more of the app's entries (routes, workers, lazy imports), with what they
+				// import, except NOT_CORE (check with `npm run bench -- browser bytes` that the Bench loads
+				// neither layercake nor papaparse).
 				codeSplitting: {
 					groups: [
 						{ name: 'framework', test: /node_modules[\\/](svelte|@sveltejs[\\/]kit|esm-env|devalue|clsx)[\\/]|preload-helper/, priority: 2 },
-						{ name: 'core', test: /src[\\/]lib[\\/]/, minShareCount: 3, priority: 1 }
+						{ name: 'core', test: (id) => /src[\\/]lib[\\/]/.test(id) && !NOT_CORE.test(id), minShareCount: 3, priority: 1 }
 					]
 				}
 			}
