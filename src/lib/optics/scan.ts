@@ -6,7 +6,7 @@
  * 1986, §11.3 for the line shape). Power in modes beyond those listed is taken as reflected, off resonance.
  */
 import { requireThat } from './constants';
-import { airyLine, type CavitySpectrum } from './spectrum';
+import { airyLine, airyLineAt, type CavitySpectrum } from './spectrum';
 import type { ModeFraction } from './modeContent';
 
 export interface ScanPeak {
@@ -62,26 +62,17 @@ export function predictedScan(
 	const tr = new Float64Array(n);
 	const rf = new Float64Array(n);
 	const step = (opts.to_Hz - opts.from_Hz) / (n - 1);
-	// airyLine's figures, with what does not depend on the detuning taken out of the loop (same
-	// operations in the same order, so the same numbers; this loop runs points × modes times).
-	const r1 = Math.sqrt(cavity.reflectivity1);
-	const r2 = Math.sqrt(cavity.reflectivity2 * (1 - loss));
-	const rr = r1 * r2;
-	const tNum = (1 - cavity.reflectivity1) * (1 - cavity.reflectivity2);
-	const rNum = (r2 - r1) * (r2 - r1);
-	const rSin = 4 * r1 * r2;
-	const dConst = (1 - rr) * (1 - rr);
-	const dSin = 4 * rr;
+	const line = airyLineAt(cavity.reflectivity1, cavity.reflectivity2, loss);
+	const a = { transmitted: 0, reflected: 0 };
 	for (let i = 0; i < n; i++) {
 		const nu = opts.from_Hz + i * step;
 		det[i] = nu;
 		let t = 0;
 		let r = rest;
 		for (const l of lines) {
-			const s2 = Math.sin((2 * Math.PI * (nu - l.f)) / fsr / 2) ** 2;
-			const den = dConst + dSin * s2;
-			t += l.power * (tNum / den);
-			r += l.power * ((rNum + rSin * s2) / den);
+			line((2 * Math.PI * (nu - l.f)) / fsr, a);
+			t += l.power * a.transmitted;
+			r += l.power * a.reflected;
 		}
 		tr[i] = t * inputPower_W;
 		rf[i] = r * inputPower_W;

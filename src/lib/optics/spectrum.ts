@@ -136,12 +136,30 @@ export function airyFigures(reflectivity1: number, reflectivity2: number, roundT
  * R = ((r2′ − r1)² + 4·r1·r2′·sin²(δ/2))/((1 − r)² + 4r·sin²(δ/2)) with r1 = sqrt(R1), r2′ = sqrt(R2·(1 − loss)).
  */
 export function airyLine(delta_rad: number, reflectivity1: number, reflectivity2: number, roundTripLoss = 0): { transmitted: number; reflected: number } {
+	return airyLineAt(reflectivity1, reflectivity2, roundTripLoss)(delta_rad);
+}
+
+/**
+ * airyLine for one cavity, with what does not depend on the detuning worked out once: for loops over
+ * thousands of detunings (the predicted scan). Writes the fractions into `out` when given (no object
+ * per call).
+ */
+export function airyLineAt(reflectivity1: number, reflectivity2: number, roundTripLoss = 0): (delta_rad: number, out?: { transmitted: number; reflected: number }) => { transmitted: number; reflected: number } {
 	const r1 = Math.sqrt(reflectivity1);
 	const r2 = Math.sqrt(reflectivity2 * (1 - roundTripLoss));
 	const r = r1 * r2;
-	const s2 = Math.sin(delta_rad / 2) ** 2;
-	const den = (1 - r) * (1 - r) + 4 * r * s2;
-	return { transmitted: ((1 - reflectivity1) * (1 - reflectivity2)) / den, reflected: ((r2 - r1) * (r2 - r1) + 4 * r1 * r2 * s2) / den };
+	const tNum = (1 - reflectivity1) * (1 - reflectivity2);
+	const rNum = (r2 - r1) * (r2 - r1);
+	const rSin = 4 * r1 * r2;
+	const dConst = (1 - r) * (1 - r);
+	const dSin = 4 * r;
+	return (delta_rad, out = { transmitted: 0, reflected: 0 }) => {
+		const s2 = Math.sin(delta_rad / 2) ** 2;
+		const den = dConst + dSin * s2;
+		out.transmitted = tNum / den;
+		out.reflected = (rNum + rSin * s2) / den;
+		return out;
+	};
 }
 
 /** The spectrum of a cavity; throws a RangeError naming the field for bad input or an unstable cavity. */
