@@ -145,6 +145,30 @@ test('a reload shows the saved setup and never the prerendered demo in its place
 	expect(new Set(await fieldValuesShown(page))).toEqual(new Set(['532 nm']));
 });
 
+test('the plot, taken over after the rest of the page, keeps its prerendered drawing and follows the setup, a reloaded one included', async ({ page }) => {
+	// From the start of the next load: every curve element the page removes (a rebuilt plot removes its prerendered one).
+	await page.addInitScript(() => {
+		const w = window as unknown as { __curvesRemoved: number };
+		w.__curvesRemoved = 0;
+		new MutationObserver((records) => {
+			for (const r of records) for (const n of r.removedNodes) if (n instanceof Element && (n.matches('[data-testid="curve-x"]') || n.querySelector('[data-testid="curve-x"]'))) w.__curvesRemoved++;
+		}).observe(document, { subtree: true, childList: true });
+	});
+	await page.reload(); // waits for <html data-ready>: the plot has been taken over by then (src/lib/ui/island)
+	const curve = page.getByTestId('curve-x');
+	const demo = await curve.getAttribute('d');
+	expect(await page.evaluate(() => (window as unknown as { __curvesRemoved: number }).__curvesRemoved)).toBe(0);
+	// Taken over, not just drawn: the same element follows an edit.
+	await page.getByTestId('src-wavelength').fill('532 nm');
+	await expect(curve).not.toHaveAttribute('d', demo!);
+	const edited = await curve.getAttribute('d');
+	await autosaved(page, '532 nm');
+	// A returning user: the page is taken over with the demo and the plot with their own setup.
+	await page.reload();
+	await expect(curve).toHaveAttribute('d', edited!);
+	expect(await page.evaluate(() => (window as unknown as { __curvesRemoved: number }).__curvesRemoved)).toBe(0);
+});
+
 test('a first visit gets the demo beam drawn in the page itself, before any script runs', async ({ page }) => {
 	await page.route('**/*.js', (r) => r.abort());
 	await page.goto('/', { waitUntil: 'load' }); // the page as loaded: its scripts never take it over

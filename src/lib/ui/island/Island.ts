@@ -1,0 +1,19 @@
+/**
+ * An island: a part of a prerendered page that the browser takes over in a task of its own, after the
+ * rest of the page. Taking a prerendered page over (hydration) is one task in Svelte; a heavy part
+ * (a plot with its derived geometry) made that task long enough to hold input back. Inside an island,
+ * the prerendered HTML stays as it is during the page's take-over and is taken over in the next task,
+ * with the props as they are then (a returning user's setup included); until then the layout keeps
+ * the page marked not ready (src/lib/ui/island/pending.ts). On a page built in the browser (a link
+ * followed inside the app) the part is built at once, in the same task as the page.
+ *
+ * Usage: `<Island of={Plot} props={{ result, get svg() { return svg; }, set svg(v) { svg = v; } }} id="plot" />`.
+ * `props` is read afresh whenever the part reads a prop; a bindable prop goes through a getter/setter
+ * pair. `id` is unique in the page (prefix of the part's own ids, and the wrapper's `data-island`).
+ * The part sees the page's context.
+ */
+import { BROWSER } from 'esm-env';
+import IslandClient from './IslandClient.svelte';
+import IslandServer from './IslandServer.svelte';
+
+export const Island = BROWSER ? IslandClient : IslandServer;
