@@ -70,7 +70,13 @@ export interface LabReport {
 	blocked: string | null;
 	spectrum: CavitySpectrum | null;
 	content: ModeContent | null;
+	/**
+	 * The predicted scan (3001 points × every mode), worked out when first read: the Scan page reads it
+	 * only where the plot is drawn, in a task of its own (src/lib/ui/island). `hasScan` says whether
+	 * there is one without working it out.
+	 */
 	scan: PredictedScan | null;
+	hasScan: boolean;
 	/** The cavity mode per axis: waist, far-field angle, Rayleigh range, waist position on the bench. */
 	cavity: { x: AxisMode; y: AxisMode } | null;
 	/** Lenses on the bench before the cavity that may be moved (Match lenses first). */
@@ -225,7 +231,7 @@ const MAX_ORDER = 6;
  */
 export function compileLab(doc: SetupDoc, match: CompiledMatch): LabReport & { ctx: Ctx | null } {
 	const lab = readLab(doc.match);
-	const out: LabReport & { ctx: Ctx | null } = { fieldErrors: {}, errors: [], blocked: null, spectrum: null, content: null, scan: null, cavity: null, lenses: [], perturbation: null, walk: null, reflectivity: null, ctx: null };
+	const out: LabReport & { ctx: Ctx | null } = { fieldErrors: {}, errors: [], blocked: null, spectrum: null, content: null, scan: null, hasScan: false, cavity: null, lenses: [], perturbation: null, walk: null, reflectivity: null, ctx: null };
 	const err = (path: string, message: string) => {
 		if (!(path in out.fieldErrors)) out.fieldErrors[path] = message;
 		out.errors.push(message);
@@ -305,8 +311,15 @@ export function compileLab(doc: SetupDoc, match: CompiledMatch): LabReport & { c
 		return out;
 	}
 	if (out.spectrum && out.reflectivity) {
-		const fsr = out.spectrum.fsr_Hz;
-		out.scan = predictedScan(out.spectrum, out.content.modes, { reflectivity1: out.reflectivity.r1, reflectivity2: out.reflectivity.r2, roundTripLoss: out.reflectivity.loss }, 1, { from_Hz: -0.05 * fsr, to_Hz: 1.05 * fsr, points: 3001, minPeak: 1e-4 });
+		const { spectrum, reflectivity } = out;
+		const modes = out.content.modes;
+		const fsr = spectrum.fsr_Hz;
+		let scan: PredictedScan | undefined;
+		Object.defineProperty(out, 'scan', {
+			enumerable: true,
+			get: () => (scan ??= predictedScan(spectrum, modes, { reflectivity1: reflectivity.r1, reflectivity2: reflectivity.r2, roundTripLoss: reflectivity.loss }, 1, { from_Hz: -0.05 * fsr, to_Hz: 1.05 * fsr, points: 3001, minPeak: 1e-4 }))
+		});
+		out.hasScan = true;
 	}
 	const walk = steeringFor(ctx, lab, out, err, pert.offset_m, pert.tilt_rad);
 	out.walk = walk;
