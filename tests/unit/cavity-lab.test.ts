@@ -47,6 +47,22 @@ describe('cavity lab in the setup document', () => {
 		const cands = [ml2.moveA_m, ml2.moveB_m].filter((v): v is number => v !== null);
 		expect(cands.some((v) => Math.abs(v - -0.004) < 2e-4)).toBe(true);
 	});
+	it('the predicted scan is worked out when first read, once, and hasScan says whether there is one', async () => {
+		const doc = labDoc();
+		const r = compileLab(doc, compileMatchDoc(doc));
+		expect(r.hasScan).toBe(true);
+		const { predictedScan } = await import('../../src/lib/optics/scan');
+		const s = r.spectrum!;
+		const direct = predictedScan(s, r.content!.modes, { reflectivity1: r.reflectivity!.r1, reflectivity2: r.reflectivity!.r2, roundTripLoss: r.reflectivity!.loss }, 1, { from_Hz: -0.05 * s.fsr_Hz, to_Hz: 1.05 * s.fsr_Hz, points: 3001, minPeak: 1e-4 });
+		expect(r.scan).toEqual(direct);
+		expect(r.scan).toBe(r.scan); // the same object on every read
+		expect(Object.keys(JSON.parse(JSON.stringify(r)).scan.transmitted_W)).toHaveLength(3001); // written out like any other field
+		const refused = labDoc();
+		(refused.match as { lab: { reflectivity1: string } }).lab.reflectivity1 = '100 %';
+		const rr = compileLab(refused, compileMatchDoc(refused));
+		expect(rr.hasScan).toBe(false);
+		expect(rr.scan).toBeNull();
+	});
 	it('a perturbation of the input mirror’s reflectivity to 100 % is refused, naming the field', () => {
 		const doc = labDoc();
 		(doc.match as { lab: { reflectivity1: string } }).lab.reflectivity1 = '100 %';
