@@ -176,6 +176,9 @@ test('a first visit gets the demo beam drawn in the page itself, before any scri
 	await expect(curve).toBeVisible();
 	expect((await curve.getAttribute('d'))!.length).toBeGreaterThan(100);
 	await expect(page.getByTestId('src-wavelength')).toHaveValue('1064 nm');
+	// Nothing in the demo needs fixing: no field says it does (the read-out z once said "empty" here).
+	await expect(page.locator('.field-error')).toHaveCount(0);
+	await expect(page.getByTestId('cursor-z')).not.toHaveValue('');
 	// Until the scripts take over, the page says it does not answer input yet.
 	await expect(page.locator('main')).toHaveAttribute('aria-disabled', 'true');
 });

@@ -12,8 +12,7 @@
  * pair. `id` is unique in the page (prefix of the part's own ids, and the wrapper's `data-island`).
  * The part sees the page's context.
  */
-import { BROWSER } from 'esm-env';
-import IslandClient from './IslandClient.svelte';
-import IslandServer from './IslandServer.svelte';
-
-export const Island = BROWSER ? IslandClient : IslandServer;
+// `#island` (package.json "imports"): IslandClient.svelte where the "browser" condition holds (the
+// app's bundle), IslandServer.svelte elsewhere (prerendering). Chosen when the module is resolved, so the
+// server renderer it needs never reaches the browser.
+export { default as Island } from '#island';
