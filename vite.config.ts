@@ -20,7 +20,7 @@ export default defineConfig({
 				// neither layercake nor papaparse).
 				codeSplitting: {
 					groups: [
-						{ name: 'framework', test: /node_modules[\\/](svelte|@sveltejs[\\/]kit|esm-env|devalue|clsx)[\\/]|preload-helper|rolldown[\\/]runtime/, priority: 2 },
+						{ name: 'framework', test: /node_modules[\\/](svelte|@sveltejs[\\/]kit|esm-env|devalue|clsx)[\\/]|preload-helper/, priority: 2 },
 						{ name: 'core', test: (id) => /src[\\/]lib[\\/]/.test(id) && !NOT_CORE.test(id), minShareCount: 3, priority: 1 }
 					]
 				}
