@@ -69,6 +69,22 @@ test('a reload shows the saved laser and never the prerendered demo in its place
 	expect(new Set(await fieldValuesShown(page))).toEqual(new Set(['50 mW']));
 });
 
+test('a reload never shows the prerendered demo curve in place of the saved laser, though the plot is taken over last', async ({ page }) => {
+	// The demo's curve as prerendered (the plot is an island that only draws: the page answers input
+	// before it is taken over, but a returning user's page stays hidden until it is).
+	const html = await (await page.request.get('/hazard/')).text();
+	const demo = /<path d="([^"]+)"[^>]*data-testid="hz-series-0"/.exec(html)?.[1];
+	expect(demo && demo.length).toBeGreaterThan(100);
+	await page.getByTestId('hz-power').fill('50 mW');
+	await expect.poll(() => page.evaluate(() => Object.values(localStorage).join('\n'))).toContain('50 mW');
+	await recordFieldWhileShown(page, 'hz-series-0', 'd');
+	await page.reload();
+	await expect(page.getByTestId('hz-power')).toHaveValue('50 mW');
+	const shown = await fieldValuesShown(page);
+	expect(shown).not.toContain(demo);
+	expect(shown.every((d) => d.length > 100)).toBe(true);
+});
+
 test('editing the power changes the distances; a bad wavelength is refused with the rule', async ({ page }) => {
 	await page.getByTestId('hz-power').fill('50 mW');
 	await expect(page.getByTestId('hz-nohd-formula')).not.toHaveText('499.6 m');

@@ -7,19 +7,22 @@ import { expect, type Page } from '@playwright/test';
 
 type Seen = { __seen: string[] };
 
-/** Start recording, for the next load of `page`, the value of the field with this test id. */
-export async function recordFieldWhileShown(page: Page, testid: string): Promise<void> {
-	await page.addInitScript((id) => {
+/**
+ * Start recording, for the next load of `page`, the value of the field with this test id (or, given
+ * `attribute`, that attribute of the element with this test id, e.g. a plot curve's `d`).
+ */
+export async function recordFieldWhileShown(page: Page, testid: string, attribute?: string): Promise<void> {
+	await page.addInitScript(([id, attr]) => {
 		const seen: string[] = [];
 		(window as unknown as Seen).__seen = seen;
 		const look = () => {
 			const main = document.querySelector('main');
 			const field = document.querySelector<HTMLInputElement>(`[data-testid="${id}"]`);
-			if (main && field && main.checkVisibility({ visibilityProperty: true })) seen.push(field.value);
+			if (main && field && main.checkVisibility({ visibilityProperty: true })) seen.push(attr ? String(field.getAttribute(attr)) : field.value);
 			if (!document.documentElement.hasAttribute('data-ready') || seen.length < 3) requestAnimationFrame(look);
 		};
 		requestAnimationFrame(look);
-	}, testid);
+	}, [testid, attribute] as const);
 }
 
 /** The values recorded since the load (at least three visible frames). */
