@@ -5,12 +5,12 @@
  * the prerendered HTML stays as it is during the page's take-over and is taken over in the next task,
  * with the props as they are then (a returning user's setup included); until then the layout keeps
  * the page marked not ready, unless the island is marked `drawing` (it takes no input), and keeps a
- * returning user's page hidden in either case (src/lib/ui/island/pending.ts). On a page built in the browser (a link
- * followed inside the app) the part is built at once, in the same task as the page.
+ * returning user's page hidden in either case (src/lib/ui/island/pending.ts). On a page built in the
+ * browser (a link followed inside the app) the part is built at once, in the same task as the page.
  *
  * Usage: `<Island of={Plot} props={{ result, get svg() { return svg; }, set svg(v) { svg = v; } }} id="plot" />`.
- * `props` is read afresh whenever the part reads a prop; a bindable prop goes through a getter/setter
- * pair. `id` is unique in the page (prefix of the part's own ids, and the wrapper's `data-island`).
+ * The part reads each prop through a derived of its own over `props` (liveProps.svelte.ts); a bindable
+ * prop goes through a getter/setter pair. `id` is unique in the page (prefix of the part's own ids, and the wrapper's `data-island`).
  * The part sees the page's context.
  */
 // `#island` (package.json "imports"): IslandClient.svelte where the "browser" condition holds (the

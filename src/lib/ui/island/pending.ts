@@ -12,7 +12,7 @@ let waiting: { kinds: IslandKind[]; done: () => void }[] = [];
 const settled = (kinds: IslandKind[]) => kinds.every((k) => open[k] === 0);
 
 /** An island will take its part of the page over later; call the returned function once it has. */
-export function holdReady(kind: IslandKind = 'input'): () => void {
+export function holdReady(kind: IslandKind): () => void {
 	open[kind]++;
 	let released = false;
 	return () => {
@@ -29,6 +29,6 @@ export function holdReady(kind: IslandKind = 'input'): () => void {
  * Resolves once every island of the given kinds has taken its part over (at once when there is none):
  * `['input']` for the page to answer input, `['input', 'drawing']` for everything it shows.
  */
-export function islandsTakenOver(kinds: IslandKind[] = ['input', 'drawing']): Promise<void> {
+export function islandsTakenOver(kinds: IslandKind[]): Promise<void> {
 	return settled(kinds) ? Promise.resolve() : new Promise((done) => waiting.push({ kinds, done }));
 }
