@@ -55,34 +55,68 @@ function accepts(header, token) {
 	});
 }
 
+/**
+ * What a path is answered with, kept in memory once read: a request then costs one `stat` (is the file
+ * still the one read?) instead of the half-dozen file-system calls of reading it again. A rebuilt file
+ * (newer mtime) is read afresh; a removed one is looked up again.
+ */
+const cache = new Map();
+
+/** The file behind `urlPath` with its forms (raw, and the precompressed ones not older than it), or null. */
+async function load(urlPath) {
+	const file = await resolveFile(urlPath);
+	if (!file) return null;
+	const original = await stat(file);
+	const entry = { file, mtimeMs: original.mtimeMs, raw: await readFile(file), br: null, gzip: null };
+	for (const [token, ext] of [['br', '.br'], ['gzip', '.gz']]) {
+		try {
+			// A precompressed form older than the file itself is stale (the file was rebuilt or edited).
+			if ((await stat(file + ext)).mtimeMs < original.mtimeMs) continue;
+			entry[token] = await readFile(file + ext);
+		} catch {
+			/* no precompressed form */
+		}
+	}
+	return entry;
+}
+
+async function lookup(urlPath) {
+	const key = urlPath.split('?')[0];
+	const known = cache.get(key);
+	if (known) {
+		try {
+			if ((await stat(known.file)).mtimeMs === known.mtimeMs) return known;
+		} catch {
+			/* removed: look it up again */
+		}
+	}
+	const entry = await load(key);
+	if (entry) cache.set(key, entry);
+	else cache.delete(key);
+	return entry;
+}
+
 const server = createServer(async (req, res) => {
-	const file = await resolveFile(req.url ?? '/');
-	if (!file) {
+	const entry = await lookup(req.url ?? '/');
+	if (!entry) {
 		res.writeHead(404, { 'content-type': 'text/plain' });
 		res.end('not found');
 		return;
 	}
 	const accept = String(req.headers['accept-encoding'] ?? '');
 	const headers = {
-		'content-type': types[extname(file)] ?? 'application/octet-stream',
-		'cache-control': file.includes('/_app/immutable/') ? 'public, max-age=31536000, immutable' : 'no-cache',
+		'content-type': types[extname(entry.file)] ?? 'application/octet-stream',
+		'cache-control': entry.file.includes('/_app/immutable/') ? 'public, max-age=31536000, immutable' : 'no-cache',
 		vary: 'Accept-Encoding'
 	};
-	let body = null;
-	const original = await stat(file);
-	for (const [token, ext] of [['br', '.br'], ['gzip', '.gz']]) {
-		if (!accepts(accept, token)) continue;
-		try {
-			// A precompressed form older than the file itself is stale (the file was rebuilt or edited).
-			if ((await stat(file + ext)).mtimeMs < original.mtimeMs) continue;
-			body = await readFile(file + ext);
+	let body = entry.raw;
+	for (const token of ['br', 'gzip']) {
+		if (entry[token] && accepts(accept, token)) {
+			body = entry[token];
 			headers['content-encoding'] = token;
 			break;
-		} catch {
-			/* no precompressed form: try the next one */
 		}
 	}
-	body ??= await readFile(file);
 	headers['content-length'] = body.length;
 	res.writeHead(200, headers);
 	res.end(req.method === 'HEAD' ? undefined : body);

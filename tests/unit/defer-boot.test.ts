@@ -32,7 +32,13 @@ function runBoot(html: string, restoring: boolean) {
 		head: { appendChild: (l: { rel: string; href: string }) => log.push(`${l.rel} ${l.href}`) }
 	};
 	const kit = { start: (_app: unknown, el: unknown) => log.push(`start on ${el}`) };
-	const fn = new Function('document', 'requestAnimationFrame', 'setTimeout', '__import', 'location', script.replaceAll('import(', '__import('));
+	const sessionStorage = {
+		get length() {
+			log.push('sessionStorage opened');
+			return 0;
+		}
+	};
+	const fn = new Function('document', 'requestAnimationFrame', 'setTimeout', '__import', 'location', 'sessionStorage', script.replaceAll('import(', '__import('));
 	const imports: Promise<unknown>[] = [];
 	const globalScope = globalThis as Record<string, unknown>;
 	fn(
@@ -45,7 +51,8 @@ function runBoot(html: string, restoring: boolean) {
 			imports.push(p);
 			return p;
 		},
-		'http://x/'
+		'http://x/',
+		sessionStorage
 	);
 	delete globalScope.__sveltekit_x1;
 	return { log, frames, timers, imports };
@@ -63,9 +70,11 @@ describe('deferBoot: a prerendered page paints before its scripts load (build-ti
 		run.frames[0]();
 		const afterFrame = run.timers.find((t) => t.ms === 0)!;
 		afterFrame.fn();
-		// The same preloads, in the page's order, then SvelteKit's own boot on the same element.
+		// The same preloads, in the page's order; the session storage opened while they load (SvelteKit's
+		// client reads it as it starts); then SvelteKit's own boot on the same element.
 		expect(run.log.slice(0, 3)).toEqual(['modulepreload ./_app/immutable/entry/start.A.js', 'modulepreload ./_app/immutable/chunks/B.js', 'modulepreload ./_app/immutable/entry/app.C.js']);
-		expect(run.log.slice(3)).toEqual(['import ./_app/immutable/entry/start.A.js', 'import ./_app/immutable/entry/app.C.js']);
+		expect(run.log[3]).toBe('sessionStorage opened');
+		expect(run.log.slice(4)).toEqual(['import ./_app/immutable/entry/start.A.js', 'import ./_app/immutable/entry/app.C.js']);
 		await Promise.all(run.imports);
 		await new Promise((r) => setTimeout(r, 0));
 		expect(run.log.at(-1)).toBe('start on the-body-div');
