@@ -11,7 +11,9 @@
  *   (default 10). "First view" is the end of the first frame that shows the page's plot (the beam
  *   on the bench), visible; time to interactive follows the quiet-window rule: the end of the last long
  *   task (> 50 ms) before a 5 s window without one, and never before the app has taken the page over
- *   (`<html data-ready>`, set once its scripts answer input; a prerendered view is shown earlier).
+ *   (`<html data-ready>`, set once its scripts answer input: the layout taken over and every part of the
+ *   page taken over or armed to take itself over at the first input aimed at it; a prerendered view is
+ *   shown earlier).
  *   The bench page is also loaded as by a returning user, with a setup autosaved in the browser. References: first paint of a blank page, and the
  *   frameworkless page bench/plain/caustic.html drawing the same plot.
  * - Drag: real input through the browser's input pipeline (Playwright mouse moves, i.e. CDP

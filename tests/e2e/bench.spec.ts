@@ -297,3 +297,37 @@ for (const kind of elementKinds) {
 		await refusesBadInput(page, `el-${label}-`);
 	});
 }
+
+test('input aimed at the page the moment it says it answers is not lost: a part not yet taken over takes itself over inside the event', async ({ page }) => {
+	// The first moment <html data-ready> is there (a mutation observer runs before the next task, so before
+	// any part's own take-over task): a click on "Add element" (the workspace) and the End key on the plot's
+	// read-out cursor (the plot, an island inside the workspace's).
+	await page.addInitScript(() => {
+		const w = window as unknown as { __early: Record<string, unknown> };
+		new MutationObserver((_, obs) => {
+			if (!document.documentElement?.hasAttribute('data-ready')) return;
+			obs.disconnect();
+			const add = document.querySelector('[data-testid="add-element"]') as HTMLButtonElement & { __click?: unknown };
+			const knob = document.querySelector('[data-testid="cursor-knob"]') as SVGGElement & { __keydown?: unknown };
+			// Svelte keeps a delegated handler on the element itself: none yet means not taken over yet.
+			const cursorBefore = (document.querySelector('[data-testid="cursor-z"]') as HTMLInputElement).value;
+			w.__early = { elements: document.querySelectorAll('li.el').length, addHandled: typeof add.__click, knobHandled: typeof knob.__keydown, cursorBefore };
+			add.click();
+			knob.focus();
+			knob.dispatchEvent(new KeyboardEvent('keydown', { key: 'End', bubbles: true, cancelable: true }));
+		}).observe(document, { subtree: true, attributes: true, attributeFilter: ['data-ready'] });
+	});
+	await page.reload();
+	const early = await page.evaluate(() => (window as unknown as { __early: { elements: number; addHandled: string; knobHandled: string; cursorBefore: string } }).__early);
+	expect(early).toMatchObject({ addHandled: 'undefined', knobHandled: 'undefined' });
+	expect(early.elements).toBeGreaterThan(0);
+	// The click added an element, and the key moved the cursor to the end of the plot, as the same key does now.
+	await expect(page.locator('li.el')).toHaveCount(early.elements + 1);
+	const cursor = page.getByTestId('cursor-z');
+	await expect(cursor).not.toHaveValue(early.cursorBefore);
+	const atEnd = await cursor.inputValue();
+	await page.getByTestId('cursor-knob').press('Home');
+	await expect(cursor).not.toHaveValue(atEnd);
+	await page.getByTestId('cursor-knob').press('End');
+	await expect(cursor).toHaveValue(atEnd);
+});
