@@ -1,12 +1,37 @@
 import { sveltekit } from '@sveltejs/kit/vite';
+import type { Plugin } from 'vite';
 import { defineConfig } from 'vitest/config';
+
+/**
+ * `import Part from './Part.svelte?prerender-only'`: the part itself when prerendering (the server
+ * build), nothing (`null`) in the browser's bundle, so that a part the browser loads later
+ * (src/lib/ui/island/lazyPart.ts) and what it alone needs stay out of the page's first load. A plain
+ * import dropped only by `import.meta.env.SSR` still put the part in the page's chunk.
+ */
+function prerenderOnly(): Plugin {
+	const SUFFIX = '?prerender-only';
+	const EMPTY = '\0beamwright:prerender-only';
+	return {
+		name: 'beamwright:prerender-only',
+		enforce: 'pre',
+		async resolveId(source, importer, options) {
+			if (!source.endsWith(SUFFIX)) return null;
+			const server = options?.ssr || this.environment?.config.consumer === 'server';
+			if (!server) return EMPTY;
+			return this.resolve(source.slice(0, -SUFFIX.length), importer, { ...options, skipSelf: true });
+		},
+		load(id) {
+			return id === EMPTY ? 'export default null;' : null;
+		}
+	};
+}
 
 // Shared by several pages but never needed by the Bench, and each pulling a library in with it (the
 // plots' axes: layercake and d3; the CSV reader: papaparse; the section repair: its schemas).
 const NOT_CORE = /src[\\/]lib[\\/](ui[\\/]plot[\\/]Axis[XY]\.svelte|io[\\/]csv\.ts|document[\\/]repair\.ts)$/;
 
 export default defineConfig({
-	plugins: [sveltekit()],
+	plugins: [prerenderOnly(), sveltekit()],
 	worker: { format: 'es' },
 	build: {
 		rolldownOptions: {
