@@ -31,3 +31,23 @@ for (const p of pages) {
 		await expect(page.getByTestId(p.plot)).toBeVisible();
 	});
 }
+
+// Their styles cannot come with their code (it loads later): with scripts blocked the prerendered plots
+// must still be laid out and drawn as the app draws them (src/lib/ui/plot/plots.css).
+for (const p of [
+	{ path: '/scan/', figure: 'scan-plot', curve: 'scan-transmitted' },
+	{ path: '/hazard/', figure: 'hz-plot', curve: 'hz-series-0' }
+]) {
+	test(`${p.path}: with scripts blocked the prerendered plot is styled (size, layout, unfilled curve)`, async ({ page }) => {
+		await page.route('**/*.js', (r) => r.abort());
+		await page.goto(p.path, { waitUntil: 'load' });
+		const style = await page.evaluate(({ figure, curve }) => {
+			const fig = document.querySelector(`[data-testid="${figure}"]`)!;
+			const svg = fig.querySelector('svg')!;
+			const path = document.querySelector(`[data-testid="${curve}"]`)!;
+			const tick = fig.querySelector('.bw-axis text')!;
+			return { height: getComputedStyle(fig).height, svgPosition: getComputedStyle(svg).position, fill: getComputedStyle(path).fill, tickSize: getComputedStyle(tick).fontSize };
+		}, p);
+		expect(style).toEqual({ height: '340px', svgPosition: 'absolute', fill: 'none', tickSize: '12px' });
+	});
+}
