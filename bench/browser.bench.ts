@@ -14,8 +14,9 @@
  *   (`<html data-ready>`, set once its scripts answer input: the layout taken over and every part of the
  *   page taken over or armed to take itself over at the first input aimed at it; a prerendered view is
  *   shown earlier).
- *   The bench page is also loaded as by a returning user, with a setup autosaved in the browser. References: first paint of a blank page, and the
- *   frameworkless page bench/plain/caustic.html drawing the same plot.
+ *   The bench page is also loaded as by a returning user, with a setup autosaved in the browser. References: first paint of a blank page,
+ *   loaded once before every measured load (its median rests on 7 samples a round), and the frameworkless page
+ *   bench/plain/caustic.html drawing the same plot. The pages' order turns each round.
  * - Drag: real input through the browser's input pipeline (Playwright mouse moves, i.e. CDP
  *   Input.dispatchMouseEvent) on a 20-element astigmatic train with apertures, from each pointermove's
  *   `event.timeStamp` to the end of the next frame after the handler ran, p50 and p95, repeated;
@@ -166,6 +167,22 @@ async function coldLoad(browser: Browser, url: string, view: string, setup?: str
 	}
 }
 
+/**
+ * One cold load of the blank page: its first paint (ms after navigation start). Nothing on it runs
+ * later, so no quiet window is waited for: cheap enough to take one before every measured load.
+ */
+async function blankFirstPaint(browser: Browser): Promise<number> {
+	const page = await freshPage(browser, probe('p'));
+	try {
+		await page.goto(BLANK, { waitUntil: 'commit' });
+		return (await (
+			await page.waitForFunction(`(() => performance.getEntriesByType('paint').find((e) => e.name === 'first-paint')?.startTime)()`, undefined, { timeout: 60_000, polling: 20 })
+		).jsonValue()) as number;
+	} finally {
+		await page.context().close();
+	}
+}
+
 /** Real mouse drag of `handle` to and fro; returns the per-event latencies after a 20-event warm-up. */
 async function dragLatency(browser: Browser, url: string, setup?: string): Promise<{ lat: number[]; moved: number }> {
 	const page = await freshPage(browser, probe('[data-testid="curve-x"]'), setup);
@@ -290,13 +307,17 @@ export async function run(): Promise<Row[]> {
 			const saved = JSON.stringify({ ...demoSetup(), name: 'bench: a returning user\'s saved setup' });
 			const benchPage = PAGES.find((p) => p.path === '/');
 			await coldLoad(browser, BLANK, 'p'); // warm-up: browser and server
+			// The reference is sampled as the pages are: a blank load just before every measured load, so that
+			// it sees the same moments of a host whose speed drifts, and its median rests on many samples (a
+			// single first paint is a multiple of 4 ms and spreads over tens of ms).
 			for (let i = 0; i < LOADS; i++) {
-				const b = await coldLoad(browser, BLANK, 'p');
-				blank.push(b.fp);
+				blank.push(await blankFirstPaint(browser));
 				const p = await coldLoad(browser, PLAIN, '[data-testid="curve-x"]');
 				plainFirst.push(p.first);
 				plainTti.push(p.tti);
-				for (const pg of PAGES) {
+				// The pages' order turns by one each round: no page always follows the same one.
+				for (const pg of [...PAGES.slice(i % PAGES.length), ...PAGES.slice(0, i % PAGES.length)]) {
+					blank.push(await blankFirstPaint(browser));
 					const r = await coldLoad(browser, ORIGIN + pg.path, pg.view);
 					const e = per.get(pg.path)!;
 					e.first.push(r.first);
@@ -304,13 +325,14 @@ export async function run(): Promise<Row[]> {
 					e.longAfter.push(r.longAfter);
 				}
 				if (benchPage) {
+					blank.push(await blankFirstPaint(browser));
 					const r = await coldLoad(browser, ORIGIN + '/', benchPage.view, saved);
 					returning.first.push(r.first);
 					returning.tti.push(r.tti);
 				}
 			}
 			const blankS = spread(blank);
-			rows.push(refRow(`blank page, first paint (cold, median of ${LOADS})`, 'ms', blankS));
+			rows.push(refRow(`blank page, first paint (cold, median of ${blank.length}: one before each load)`, 'ms', blankS));
 			rows.push(ratioRow(`frameworkless caustic page: first beam drawn`, 'ms', spread(plainFirst), 'blank FP', blankS, null));
 			rows.push(ratioRow(`frameworkless caustic page: time to interactive`, 'ms', spread(plainTti), 'blank FP', blankS, null));
 			for (const pg of PAGES) {
