@@ -343,7 +343,10 @@ export async function run(): Promise<Row[]> {
 				rows.push({ figure: `load, ${pg.name}: longest task after the first view`, value: la.med, min: la.min, max: la.max, unit: 'ms', goal: '≤ 50 ms (0 = none over 50 ms)', ok: la.max <= 50 });
 			}
 			if (benchPage) {
-				rows.push(ratioRow(`load, bench, returning user (autosaved setup): first beam drawn`, 'ms', spread(returning.first), 'blank FP', blankS, 2));
+				// Reported, not held to the 2× of a first view: a returning user's beam is their own setup, which only
+				// the scripts can read from this browser's storage; the prerendered demo is hidden meanwhile, never
+				// passed off as their work. Their goal is the time to interactive below.
+				rows.push(ratioRow(`load, bench, returning user (autosaved setup): first beam drawn`, 'ms', spread(returning.first), 'blank FP', blankS, null, false, 'drawn once the scripts have read the saved setup; goal on the next row'));
 				rows.push(ratioRow(`load, bench, returning user: time to interactive`, 'ms', spread(returning.tti), 'blank FP', blankS, 4));
 			}
 		}
