@@ -21,12 +21,52 @@ export type Row = {
 	ratio?: number;
 	goal: string;
 	ok?: boolean;
+	/**
+	 * Where the ratio may lie given the samples' spread (medianRatioInterval): when the goal falls inside,
+	 * the verdict is within the noise of this run and another run may well give the other one.
+	 */
+	interval?: { lo: number; hi: number; level: number };
+	/** The goal's ratio, when the row has one (to tell whether it lies inside `interval`). */
+	goalRatio?: number;
 };
 
 export function spread(xs: number[]): Spread {
 	const s = [...xs].sort((a, b) => a - b);
 	const n = s.length;
 	return { min: s[0], med: n % 2 ? s[(n - 1) >> 1] : (s[n / 2 - 1] + s[n / 2]) / 2, max: s[n - 1] };
+}
+
+/** Median of a sample (the mean of the middle two when it has an even count). */
+export function median(xs: number[]): number {
+	return spread(xs).med;
+}
+
+/**
+ * Percentile bootstrap interval of median(xs) / median(ref): both samples are drawn again with
+ * replacement `reps` times and the central `level` of the resampled ratios kept (Efron and Tibshirani,
+ * An Introduction to the Bootstrap, 1993, ch. 13, the percentile interval). Drawn with a fixed-seed
+ * generator (mulberry32), so one run's samples always give the same interval.
+ */
+export function medianRatioInterval(xs: number[], ref: number[], level = 0.9, reps = 2000): { lo: number; hi: number; level: number } {
+	if (xs.length === 0 || ref.length === 0) throw new Error('medianRatioInterval: both samples need at least one value');
+	let seed = 0x9e3779b9;
+	const rand = () => {
+		seed = (seed + 0x6d2b79f5) | 0;
+		let t = seed;
+		t = Math.imul(t ^ (t >>> 15), t | 1);
+		t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+		return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+	};
+	const draw = (v: number[]) => {
+		const out = new Array<number>(v.length);
+		for (let i = 0; i < v.length; i++) out[i] = v[Math.floor(rand() * v.length)];
+		return out;
+	};
+	const ratios: number[] = [];
+	for (let r = 0; r < reps; r++) ratios.push(median(draw(xs)) / median(draw(ref)));
+	ratios.sort((a, b) => a - b);
+	const at = (p: number) => ratios[Math.min(reps - 1, Math.max(0, Math.round(p * (reps - 1))))];
+	return { lo: at((1 - level) / 2), hi: at((1 + level) / 2), level };
 }
 
 /** Percentile (nearest rank) of a sample. */
@@ -61,7 +101,7 @@ export function timed(fn: () => unknown): number {
  * A row judged as a ratio: figure / reference ≤ goalRatio (or ≥ when `atLeast`, for rates).
  * The absolute figure is printed only beside its reference.
  */
-export function ratioRow(figure: string, unit: string, s: Spread, refName: string, ref: Spread, goalRatio: number | null, atLeast = false, note = ''): Row {
+export function ratioRow(figure: string, unit: string, s: Spread, refName: string, ref: Spread, goalRatio: number | null, atLeast = false, note = '', interval?: Row['interval']): Row {
 	const ratio = s.med / ref.med;
 	const goal = goalRatio === null ? `report${note ? '; ' + note : ''}` : `${atLeast ? '≥' : '≤'} ${goalRatio}× ${refName}${note ? '; ' + note : ''}`;
 	return {
@@ -73,8 +113,25 @@ export function ratioRow(figure: string, unit: string, s: Spread, refName: strin
 		ref: { name: refName, value: ref.med },
 		ratio,
 		goal,
-		ok: goalRatio === null ? undefined : atLeast ? ratio >= goalRatio : ratio <= goalRatio
+		ok: goalRatio === null ? undefined : atLeast ? ratio >= goalRatio : ratio <= goalRatio,
+		...(interval ? { interval } : {}),
+		...(goalRatio === null ? {} : { goalRatio })
 	};
+}
+
+/** The printed verdict of a row: meets / misses, and whether its goal lies within the run's noise. */
+export function verdictText(r: Row): string {
+	if (r.ok === undefined) return '';
+	const base = r.ok ? 'meets goal' : 'MISSES goal';
+	const iv = r.interval;
+	if (!iv || r.goalRatio === undefined) return `  [${base}]`;
+	const range = `${fmtRatio(iv.lo)}–${fmtRatio(iv.hi)}×`;
+	const within = iv.lo <= r.goalRatio && r.goalRatio <= iv.hi;
+	return within ? `  [${base}, within this run's noise: ${Math.round(iv.level * 100)} % interval ${range}]` : `  [${base}; ${Math.round(iv.level * 100)} % interval ${range}]`;
+}
+
+function fmtRatio(x: number): string {
+	return x >= 10 ? x.toFixed(1) : x.toFixed(2);
 }
 
 /** The reference itself, printed first. */

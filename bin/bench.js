@@ -14,6 +14,7 @@ import { loadavg } from 'node:os';
 
 register();
 const dir = join(dirname(fileURLToPath(import.meta.url)), '..', 'bench');
+const { verdictText } = await import(join(dir, 'stats.ts'));
 const only = process.argv[2];
 if (process.argv[3]) process.env.BW_BENCH_PART = process.argv[3];
 const files = readdirSync(dir).filter((f) => f.endsWith('.bench.ts') && (!only || f.includes(only))).sort();
@@ -32,7 +33,7 @@ for (const f of files) {
 		const spreadText = r.min !== undefined ? `${fmt(r.min)} / ${fmt(r.value)} / ${fmt(r.max)}` : fmt(r.value);
 		const refText = r.ref ? `${r.ref.name} ${fmt(r.ref.value)} ${r.ref.unit ?? r.unit}` : '';
 		const ratioText = r.ratio !== undefined ? `${fmt(r.ratio)}×` : '';
-		const verdict = r.ok === undefined ? '' : r.ok ? '  [meets goal]' : '  [MISSES goal]';
+		const verdict = verdictText(r);
 		console.log(`${f.replace('.bench.ts', '').padEnd(8)} ${r.figure.padEnd(62)} ${spreadText.padStart(24)} ${r.unit.padEnd(7)} ${refText.padEnd(26)} ${ratioText.padStart(7)}  ${r.goal}${verdict}`);
 	}
 }
