@@ -39,7 +39,7 @@ export const T23_SEARCHED =
 	'searched: French labour code annexe II (Table 2.3 as an image; Table 2.2 cell damaged), Portuguese DAR II-A n.º 75 p. 43 and n.º 121 p. 50 ' +
 	'(only the notes to Quadro 2.3 and the head of Quadro 2.2 come through as text), Norwegian Regulations concerning Action and Limit Values Annex 4 ' +
 	'(only Table 4.5 reached), CELEX 02006L0025 and legislation.gov.uk Annex II (only the opening and Tables 2.5–2.6 reached), Spanish Real Decreto 486/2010, ' +
-	'Italian D.Lgs. 81/2008 Allegato XXXVII, Romanian HG 510/2010, Czech NV 291/2015 Sb. příloha č. 3 (the page reached masks its text), Swedish, Danish and Polish texts, German TROS Laserstrahlung Teil 2 (opening pages only), the Commission non-binding guide (EN, PT, IT: opening pages only)';
+	'Italian D.Lgs. 81/2008 Allegato XXXVII, Romanian HG 510/2010, Czech NV 291/2015 Sb. příloha č. 3 (the page reached masks its text), the Norwegian-language vedlegg 4 and the Belgian arrêté royal of 22 April 2010 (openings only), the lexaris.io and fantasticsearch.net copies of CELEX 02006L0025 (openings and Tables 2.5–2.6 only), Swedish, Danish and Polish texts, German TROS Laserstrahlung Teil 2 (opening pages only), the Commission non-binding guide (EN, PT, IT: opening pages only)';
 /** Why a Table 2.3 row is recalled, and the check the read text allows for it. */
 const t23Mem = (check: string) =>
 	` (from memory: Table 2.3 was not reachable as text — ${T23_SEARCHED}. ${check} Where thermal and photochemical forms both apply, the more restrictive is used, per note a to Table 2.2 and note B to Quadro 2.3, DAR II-A n.º 75 p. 43, both read)`;
