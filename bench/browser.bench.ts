@@ -232,7 +232,7 @@ async function dragLatency(browser: Browser, url: string, setup?: string): Promi
 	const page = await freshPage(browser, probe('[data-testid="curve-x"]'), setup);
 	try {
 		await page.goto(url);
-		await page.waitForFunction('window.__firstView !== undefined', undefined, { timeout: 60_000 });
+		await signals(page, ['firstView'], `${url}: first view`);
 		// A lens glyph that the pointer really reaches (its centre not covered by a neighbour or a panel):
 		// L4 when it is free, else the next free lens. The app's handle group also holds its stem, so aim at its body.
 		const at = (await page.evaluate(`(() => {
@@ -290,7 +290,7 @@ async function routeFiles(browser: Browser, pg: (typeof PAGES)[number]): Promise
 	for (const m of html.matchAll(/"(\.\.?\/[^"]*_app\/immutable\/[^"]+\.js)"/g)) named.add(new globalThis.URL(m[1], ORIGIN + pg.path).pathname);
 	const page = await freshPage(browser, probe(pg.view));
 	await page.goto(ORIGIN + pg.path, { waitUntil: 'commit' });
-	await page.waitForFunction('window.__firstView !== undefined && window.__ready !== undefined', undefined, { timeout: 60_000, polling: 50 });
+	await signals(page, ['firstView', 'ready'], `${pg.path}: first view (${pg.view}) and take-over`);
 	// Each request's start as the page itself timed it, against the end of the frame of the first view.
 	const seen = (await page.evaluate(`(() => performance.getEntriesByType('resource').map((e) => ({ url: e.name, at: e.startTime <= window.__firstView })))()`)) as { url: string; at: boolean }[];
 	await page.context().close();
