@@ -29,7 +29,8 @@
  * measures its own reference in the same run.
  */
 import { spawn, execSync } from 'node:child_process';
-import { existsSync, readFileSync, readdirSync, statSync } from 'node:fs';
+import { copyFileSync, existsSync, mkdirSync, mkdtempSync, readFileSync, readdirSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
 import { request } from 'node:http';
 import { join } from 'node:path';
 import { chromium, type Browser, type Page } from '@playwright/test';
@@ -40,10 +41,18 @@ const PORT = Number(process.env.BW_BENCH_PORT ?? 4318);
 const ORIGIN = `http://localhost:${PORT}`;
 const LOADS = Number(process.env.BW_BENCH_LOADS ?? 10);
 const QUIET_MS = 5000;
-const PLAIN = `${ORIGIN}/__bench/caustic.html`;
+/**
+ * The reference pages come from a server of their own (scripts/serve.js again, over a temporary folder),
+ * not from a Playwright route: a route makes Playwright intercept every request of the context, the app's
+ * modules included, each one waiting for this process to let it through.
+ */
+const REF_PORT = PORT + 1;
+const REF_ORIGIN = `http://localhost:${REF_PORT}`;
+const PLAIN = `${REF_ORIGIN}/caustic.html`;
 const PARTS = new Set((process.env.BW_BENCH_PART ?? 'bytes,load,drag').split(',').map((p) => p.trim()));
 for (const p of PARTS) if (!['bytes', 'load', 'drag'].includes(p)) throw new Error(`BW_BENCH_PART: unknown part "${p}" — use bytes, load and/or drag`);
-const BLANK = `${ORIGIN}/__bench/blank.html`;
+const BLANK = `${REF_ORIGIN}/blank.html`;
+const BLANK_HTML = '<!doctype html><html lang="en"><title>blank</title><p>blank page</p></html>';
 
 /** The first-view element of each page (BW_BENCH_PAGES=bench,scan limits bytes and load to those pages). */
 const ALL_PAGES: { path: string; name: string; view: string }[] = [
@@ -154,11 +163,6 @@ async function signals(page: Page, names: string[], what: string): Promise<void>
 
 async function freshPage(browser: Browser, script: string, setup?: string): Promise<Page> {
 	const ctx = await browser.newContext({ viewport: { width: 1440, height: 900 } });
-	await ctx.route(`${ORIGIN}/__bench/*`, (route) => {
-		const name = new globalThis.URL(route.request().url()).pathname;
-		if (name.endsWith('blank.html')) return route.fulfill({ contentType: 'text/html', body: '<!doctype html><html lang="en"><title>blank</title><p>blank page</p></html>' });
-		return route.fulfill({ contentType: 'text/html', body: readFileSync(join('bench', 'plain', 'caustic.html'), 'utf8') });
-	});
 	if (setup) await ctx.addInitScript((doc) => localStorage.setItem('beamwright.setup.v1', doc), setup);
 	await ctx.addInitScript(script);
 	const page = await ctx.newPage();
@@ -294,23 +298,64 @@ async function routeFiles(browser: Browser, pg: (typeof PAGES)[number]): Promise
 	// Each request's start as the page itself timed it, against the end of the frame of the first view.
 	const seen = (await page.evaluate(`(() => performance.getEntriesByType('resource').map((e) => ({ url: e.name, at: e.startTime <= window.__firstView })))()`)) as { url: string; at: boolean }[];
 	await page.context().close();
-	const ours = seen.map((r) => ({ path: new globalThis.URL(r.url).pathname, before: r.at, origin: new globalThis.URL(r.url).origin })).filter((r) => r.origin === ORIGIN && !r.path.startsWith('/__bench'));
+	const ours = seen.map((r) => ({ path: new globalThis.URL(r.url).pathname, before: r.at, origin: new globalThis.URL(r.url).origin })).filter((r) => r.origin === ORIGIN);
 	const noSw = (p: string) => !p.endsWith('service-worker.js');
 	const view = [...new Set([pg.path, ...ours.filter((r) => r.before).map((r) => r.path)])].filter(noSw);
 	const takeover = [...new Set([...named, ...ours.map((r) => r.path)])].filter((p) => noSw(p) && p !== pg.path && !view.includes(p));
 	return { view, takeover };
 }
 
+/**
+ * Features of the browser's own window that the bench switches off, on top of Playwright's list: every
+ * cold load opens a new window (a fresh context), and this Chromium then builds the address bar's popup
+ * as a web page of its own (chrome://omnibox-popup.top-chrome/) in a renderer of its own. Traced, that
+ * renderer kept one of the two cores busy during each load (~350 ms of its main thread from navigation to
+ * take-over), a cost a user's browser paid when its window opened, not while our page loads. Chromium
+ * keeps only the last `--disable-features`, so Playwright's own list is read back from the first launch's
+ * command line and repeated; where that cannot be read (no /proc), the browser runs as Playwright starts
+ * it and the report says so.
+ */
+const WINDOW_FEATURES_OFF = ['WebUIOmniboxPopup', 'WebUIOmniboxAimPopup', 'WebUIOmniboxFullPopup'];
+const BASE_ARGS = ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'];
+
+async function launchQuiet(): Promise<{ browser: Browser; quiet: boolean }> {
+	const executablePath = existsSync('/usr/bin/chromium') ? '/usr/bin/chromium' : undefined;
+	const first = await chromium.launch({ executablePath, args: BASE_ARGS });
+	let playwrightOff: string[] | null = null;
+	try {
+		// The browser is a child of this process (Playwright's driver runs in it).
+		for (const pid of readdirSync('/proc').filter((d) => /^\d+$/.test(d))) {
+			let stat: string, cmd: string[];
+			try {
+				stat = readFileSync(`/proc/${pid}/stat`, 'utf8');
+				cmd = readFileSync(`/proc/${pid}/cmdline`, 'utf8').split('\0');
+			} catch {
+				continue; // gone meanwhile
+			}
+			if (Number(stat.slice(stat.lastIndexOf(')') + 2).split(' ')[1]) !== process.pid) continue;
+			const arg = cmd.filter((a) => a.startsWith('--disable-features=')).at(-1);
+			if (arg && cmd.some((a) => a.startsWith('--user-data-dir='))) playwrightOff = arg.slice('--disable-features='.length).split(',').filter(Boolean);
+		}
+	} catch {
+		/* no /proc here */
+	}
+	if (!playwrightOff) return { browser: first, quiet: false };
+	await first.close();
+	const off = [...new Set([...playwrightOff, ...WINDOW_FEATURES_OFF])];
+	return { browser: await chromium.launch({ executablePath, args: [...BASE_ARGS, `--disable-features=${off.join(',')}`] }), quiet: true };
+}
+
 export async function run(): Promise<Row[]> {
 	if (!existsSync('build/index.html')) execSync('npx vite build', { stdio: 'ignore' });
 	if (!existsSync('build/index.html.br')) execSync('node scripts/compress.js', { stdio: 'ignore' });
 	const server = spawn(process.execPath, ['scripts/serve.js', '--port', String(PORT), '--quiet'], { stdio: 'ignore' });
+	const refDir = mkdtempSync(join(tmpdir(), 'beamwright-bench-'));
+	mkdirSync(join(refDir, 'build'));
+	writeFileSync(join(refDir, 'build', 'blank.html'), BLANK_HTML);
+	copyFileSync(join('bench', 'plain', 'caustic.html'), join(refDir, 'build', 'caustic.html'));
+	const refServer = spawn(process.execPath, [join(process.cwd(), 'scripts', 'serve.js'), '--port', String(REF_PORT), '--quiet'], { stdio: 'ignore', cwd: refDir });
 	await new Promise((r) => setTimeout(r, 400));
-	const exe = existsSync('/usr/bin/chromium') ? '/usr/bin/chromium' : undefined;
-	const browser = await chromium.launch({
-		executablePath: exe,
-		args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run']
-	});
+	const { browser, quiet } = await launchQuiet();
 	const rows: Row[] = [];
 	const kB = (n: number) => n / 1024;
 	try {
@@ -377,7 +422,7 @@ export async function run(): Promise<Row[]> {
 				}
 			}
 			const blankS = spread(blank);
-			rows.push(refRow(`blank page, first paint (cold, median of ${blank.length}: one before each load)`, 'ms', blankS));
+			rows.push(refRow(`blank page, first paint (cold, median of ${blank.length}: one before each load; ${quiet ? 'address-bar popup off' : 'address-bar popup ON: Playwright\'s flags could not be read, loads share the cores with it'})`, 'ms', blankS));
 			rows.push(ratioRow(`frameworkless caustic page: first beam drawn`, 'ms', spread(plainFirst), 'blank FP', blankS, null));
 			rows.push(ratioRow(`frameworkless caustic page: time to interactive`, 'ms', spread(plainTti), 'blank FP', blankS, null));
 			for (const pg of PAGES) {
@@ -426,5 +471,7 @@ export async function run(): Promise<Row[]> {
 	} finally {
 		await browser.close();
 		server.kill();
+		refServer.kill();
+		rmSync(refDir, { recursive: true, force: true });
 	}
 }
