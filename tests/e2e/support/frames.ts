@@ -16,9 +16,9 @@ export async function recordFieldWhileShown(page: Page, testid: string, attribut
 		const seen: string[] = [];
 		(window as unknown as Seen).__seen = seen;
 		const look = () => {
-			const main = document.querySelector('main');
 			const field = document.querySelector<HTMLInputElement>(`[data-testid="${id}"]`);
-			if (main && field && main.checkVisibility({ visibilityProperty: true })) seen.push(attr ? String(field.getAttribute(attr)) : field.value);
+			// Rendered and visible (not inside a hidden or content-visibility-hidden <main>).
+			if (field && field.checkVisibility({ visibilityProperty: true })) seen.push(attr ? String(field.getAttribute(attr)) : field.value);
 			if (!document.documentElement.hasAttribute('data-ready') || seen.length < 3) requestAnimationFrame(look);
 		};
 		requestAnimationFrame(look);
